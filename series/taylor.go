@@ -1,0 +1,52 @@
+package series
+
+import (
+	"fmt"
+	"math/big"
+)
+
+// ComposeTaylor returns sum_k taylor[k] (s - s(0))^k: the series of f(s(t))
+// given the Taylor coefficients taylor[k] = f^(k)(s(0))/k! of f at s(0).
+// This is the single mechanism behind every "function of a series" in this
+// package. The result has the length and precision of s; taylor must have at
+// least s.Len() entries.
+func ComposeTaylor(taylor []*big.Float, s *Series) (*Series, error) {
+	n := len(s.c)
+	if len(taylor) < n {
+		return nil, fmt.Errorf("series: ComposeTaylor needs %d Taylor coefficients, got %d", n, len(taylor))
+	}
+	prec := s.prec
+	out := newZero(n, prec)
+	out.c[0].Set(taylor[0])
+	if n == 1 {
+		return out, nil
+	}
+	// Fast path: s = s0 + c1 t exactly (the usual case of a shifted variable).
+	linear := true
+	for k := 2; k < n; k++ {
+		if s.c[k].Sign() != 0 {
+			linear = false
+			break
+		}
+	}
+	if linear {
+		pw := new(big.Float).SetPrec(prec).SetInt64(1)
+		for k := 1; k < n; k++ {
+			pw.Mul(pw, s.c[1])
+			out.c[k].Mul(taylor[k], pw)
+		}
+		return out, nil
+	}
+	// Horner in u = s - s(0): (((a_{n-1} u + a_{n-2}) u + ...) u + a_0.
+	// u has zero constant term, so u^k only touches t^k and above; truncation
+	// keeps everything at length n.
+	u := s.Copy()
+	u.c[0].SetInt64(0)
+	acc := newZero(n, prec)
+	acc.c[0].Set(taylor[n-1])
+	for k := n - 2; k >= 0; k-- {
+		acc = Mul(acc, u)
+		acc.c[0].Add(acc.c[0], taylor[k])
+	}
+	return acc, nil
+}
