@@ -27,7 +27,7 @@ func elemTRat(p, q int64, prec uint) *big.Float {
 
 // elemTCloseFloat reports whether |got - want| <= 2^-bits * max(1, |want|).
 func elemTCloseFloat(got, want *big.Float, bits int) bool {
-	d := new(big.Float).SetPrec(got.Prec() + 64).Sub(got, want)
+	d := new(big.Float).SetPrec(got.Prec()+64).Sub(got, want)
 	d.Abs(d)
 	scale := new(big.Float).Abs(want)
 	if scale.Cmp(big.NewFloat(1)) < 0 {
@@ -288,7 +288,7 @@ func TestElementaryIdentities(t *testing.T) {
 		e0 := BigExp(b.c[0], prec+64)
 		taylor := make([]*big.Float, n)
 		for k := range taylor {
-			taylor[k] = new(big.Float).SetPrec(prec + 64).Quo(e0, new(big.Float).SetInt(elemTFactorial(int64(k))))
+			taylor[k] = new(big.Float).SetPrec(prec+64).Quo(e0, new(big.Float).SetInt(elemTFactorial(int64(k))))
 		}
 		want, err := ComposeTaylor(taylor, b)
 		if err != nil {
