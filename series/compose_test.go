@@ -38,7 +38,8 @@ func TestComposeRevertIdentity(t *testing.T) {
 	}
 }
 
-// Known compositions and reversions with closed-form coefficients.
+// Known compositions and reversions with closed-form coefficients (DLMF
+// equation numbers from memory, not re-read at the source).
 func TestComposeRevertKnown(t *testing.T) {
 	const prec, n = 256, 25
 	x := elemTVar(n, prec)

@@ -73,7 +73,7 @@ func elemTFactorial(k int64) *big.Int {
 }
 
 // elemTBernoulli returns B_0..B_m exactly from sum_{j=0..k} C(k+1, j) B_j = 0
-// (DLMF 24.5.3 with x = 0; B_1 = -1/2).
+// (the standard recurrence, DLMF 24.5.3 from memory; B_1 = -1/2).
 func elemTBernoulli(m int) []*big.Rat {
 	b := make([]*big.Rat, m+1)
 	b[0] = big.NewRat(1, 1)
@@ -89,6 +89,8 @@ func elemTBernoulli(m int) []*big.Rat {
 }
 
 // Closed-form Taylor coefficients at t = 0 of elementary functions of t.
+// The formulas are standard; the DLMF equation numbers next to them are from
+// memory (not re-read at the source).
 func TestElementaryKnownCoefficients(t *testing.T) {
 	const n = 30
 	const prec = 256
