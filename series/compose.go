@@ -64,9 +64,9 @@ func Compose(f, g *Series) (*Series, error) {
 // f(0) = 0, f'(0) != 0 and at least two coefficients, and returns an error
 // otherwise.
 //
-// It uses Lagrange inversion (Stanley, Enumerative Combinatorics 2, Thm
-// 5.4.2): with h(t) = t/f(t), the coefficient of t^k in g is
-// [t^(k-1)] h(t)^k / k.
+// It uses Lagrange inversion (e.g. Stanley, Enumerative Combinatorics 2,
+// sec. 5.4; reference from memory): with h(t) = t/f(t), the coefficient of
+// t^k in g is [t^(k-1)] h(t)^k / k. Cost: about n^3/2 multiplications.
 func Revert(f *Series) (*Series, error) {
 	if err := elemCheck("Revert", f); err != nil {
 		return nil, err

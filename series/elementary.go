@@ -11,13 +11,14 @@ import (
 //	func F(a *Series) (*Series, error)
 //
 // An error (wrapping ErrDomain) means a(0) lies outside the domain where F is
-// analytic; Sin, Cos, SinCos and Exp fail only on a nil or empty series.
-// Each result equals ComposeTaylor of F's Taylor coefficients at a(0) with a,
-// but is computed in O(n^2) from the first-order differential equation
-// F satisfies (exp' = exp, a log' = 1, ...), matching coefficients of t^(k-1)
-// (Knuth, TAOCP vol. 2, sec. 4.7). Work is carried out with guard bits and
-// rounded once at the end; cancellation between coefficients of very
-// different size can still cost accuracy, as in any floating-point series.
+// analytic; Exp, Sin, Cos, SinCos and Atan fail only on a nil or empty
+// series. Each result equals ComposeTaylor of F's Taylor coefficients at a(0)
+// with a, but is computed in O(n^2) from the first-order differential
+// equation F(a) satisfies ((e^a)' = a' e^a, a (log a)' = a', ...), matching
+// coefficients of t^(k-1) (Knuth, TAOCP vol. 2, sec. 4.7; reference from
+// memory). Work is carried out with guard bits and rounded once at the end;
+// cancellation between coefficients of very different size can still cost
+// accuracy, as in any floating-point series.
 
 // elemScaledDeriv returns j*a[j] for j = 0..n-1 at prec bits (index 0 is 0):
 // the coefficients that every recurrence below multiplies by.
