@@ -65,6 +65,8 @@ type Resummed struct {
 // others from it, but at least 2^-(prec-8) |Value|. For a convergent
 // sequence this overestimates the error of the leading entry by the ratio of
 // the errors at neighbouring orders, which is what makes it a usable bound.
+// It measures the truncation of the series only: errors in the coefficients
+// themselves move every entry alike and do not show in the spread.
 func PadeTable(s *Series, x *big.Float, opts PadeTableOptions) (*Resummed, error) {
 	if s == nil || x == nil || x.IsInf() {
 		return nil, errors.New("series: PadeTable: nil series or nil/infinite point")
