@@ -1,0 +1,22 @@
+// Command qbridge computes conformal data, ground-state energy and the
+// Schwarzian coefficient of SYK-type models as functions of the interaction
+// order q, from series around q = 2 and q = infinity, their resummation, and
+// a direct Schwinger-Dyson solver. Run `qbridge --help` for the commands.
+package main
+
+import (
+	"errors"
+	"fmt"
+	"os"
+)
+
+func main() {
+	if err := rootCmd.Execute(); err != nil {
+		fmt.Fprintf(os.Stderr, "qbridge: %v\n", err)
+		var ue *usageError
+		if errors.As(err, &ue) {
+			os.Exit(2)
+		}
+		os.Exit(1)
+	}
+}
