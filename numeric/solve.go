@@ -233,9 +233,13 @@ func derivative(lv *Level, tol float64) (float64, int, error) {
 	return -deriv, its, nil
 }
 
+// richardsonPowers are the powers of h removed one by one.
+var richardsonPowers = []float64{4, 5, 6, 7}
+
 // richardson extrapolates values on grids h, 2h, 4h, ... (finest first) to
-// h = 0 assuming an error series in h^4, h^6, h^8, ... (the discretisation
-// is fourth order: tails subtracted analytically, end-corrected trapezoid).
+// h = 0 assuming an error series in richardsonPowers (the discretisation is
+// fourth order: tails subtracted analytically, end-corrected trapezoid; the
+// truncated Matsubara sum of log Z adds an h^5 term).
 // The error estimate is the size of the last correction applied.
 func richardson(v []float64) (val, err float64) {
 	if len(v) == 1 {
@@ -243,14 +247,12 @@ func richardson(v []float64) (val, err float64) {
 	}
 	t := append([]float64(nil), v...)
 	last, prev := 0.0, t[0]
-	p := 4.0
 	for k := 1; k < len(v); k++ {
-		f := math.Pow(2, p)
+		f := math.Pow(2, richardsonPowers[min(k-1, len(richardsonPowers)-1)])
 		for i := 0; i+k < len(v); i++ {
 			t[i] += (t[i] - t[i+1]) / (f - 1)
 		}
 		last, prev = t[0]-prev, t[0]
-		p += 2
 	}
 	return t[0], math.Abs(last)
 }
