@@ -23,8 +23,8 @@ type Fit struct {
 // Ground is the low-temperature extraction: E_0, S_0 and alpha_S, each from
 // the spread over fit windows and fit orders, with the exact S_0 beside.
 type Ground struct {
-	Q  float64
-	H1 float64 // first operator dimension above 2, sets the correction exponents
+	Q                 float64
+	H1                float64 // first operator dimension above 2, sets the correction exponents
 	E0, E0Err         float64
 	S0, S0Err         float64
 	AlphaS, AlphaSErr float64
