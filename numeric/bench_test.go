@@ -1,0 +1,29 @@
+package numeric
+
+import (
+	"runtime"
+	"testing"
+)
+
+// BenchmarkSolveQ4Beta1000 is one solve at q = 4, beta = 1000 on 2^20 points
+// to residual 1e-12, from a cold start (internal continuation in beta).
+// Run with -cpu 1,2. Memory: heapSysMB is the heap obtained from the OS after
+// the solves (an upper bound on the peak live heap), allocMB what one solve allocates.
+func BenchmarkSolveQ4Beta1000(b *testing.B) {
+	runtime.GC()
+	var before runtime.MemStats
+	runtime.ReadMemStats(&before)
+	for i := 0; i < b.N; i++ {
+		lv, err := continuation(4, 1000, 1<<20, 1e-12, nil)
+		if err != nil {
+			b.Fatal(err)
+		}
+		if lv.Residual > 1e-12 {
+			b.Fatalf("residual %g", lv.Residual)
+		}
+	}
+	var after runtime.MemStats
+	runtime.ReadMemStats(&after)
+	b.ReportMetric(float64(after.HeapSys)/1e6, "heapSysMB")
+	b.ReportMetric(float64(after.TotalAlloc-before.TotalAlloc)/float64(b.N)/1e6, "allocMB/op")
+}

@@ -1,0 +1,151 @@
+package numeric
+
+import (
+	"fmt"
+	"math"
+)
+
+// Level is the converged Schwinger-Dyson solution on one uniform grid.
+type Level struct {
+	Q, Beta    float64
+	Points     int       // grid points on [0, beta): 2m, with m points on (0, beta/2]
+	Tau        []float64 // tau_k = k beta/Points, k = 0..Points/2
+	G          []float64 // G(tau_k); G(beta - tau) = G(tau)
+	Iterations int       // fixed-point iterations used on this grid
+	Residual   float64   // final max_n |g_new - g| / g over Matsubara frequencies
+	LogZ       float64   // log Z / N on this grid
+	E          float64   // E / N = G'(0+)/q on this grid
+	r          []float64 // remainder g - model, the iteration variable
+}
+
+// iterLimits bounds the fixed-point iteration.
+const (
+	maxIterations  = 4000
+	andersonDepth  = 6
+	freezeBelowRes = 1e-7
+)
+
+// solveLevel solves the SD equations on a grid of 2m points, starting from
+// warm (may be nil, or on any grid, q or beta).
+func solveLevel(q, beta float64, m int, tol float64, warm *Level, progress func(float64, string)) (*Level, error) {
+	gr := newGrid(q, beta, m)
+	s := newSDMap(gr)
+	x := make([]float64, m)
+	if warm != nil {
+		warmStart(s, x, warm)
+	}
+	fx := make([]float64, m)
+	best := make([]float64, m)
+	bestRes := math.Inf(1)
+	acc := newAnderson(andersonDepth, m)
+	mix := 1.0
+	prevRes := math.Inf(1)
+	res := math.Inf(1)
+	it := 0
+	startRes := -1.0
+	for it = 1; it <= maxIterations; it++ {
+		s.apply(fx, x)
+		res = 0
+		for n := range fx {
+			g := fx[n] + s.gm[n]
+			d := math.Abs(fx[n]-x[n]) / g
+			if d > res || math.IsNaN(d) {
+				res = d
+			}
+			fx[n] -= x[n]
+		}
+		if math.IsNaN(res) || math.IsInf(res, 0) {
+			if bestRes == math.Inf(1) {
+				return nil, fmt.Errorf("numeric: NaN in the SD iteration at q=%g beta=%g (points %d, iteration %d); try a warm start from a smaller beta", q, beta, 2*m, it)
+			}
+			copy(x, best)
+			mix /= 2
+			acc.reset()
+			continue
+		}
+		if startRes < 0 {
+			startRes = res
+		}
+		if progress != nil && it%5 == 0 && startRes > tol {
+			f := math.Log(startRes/res) / math.Log(startRes/tol)
+			progress(math.Max(0, math.Min(1, f)), fmt.Sprintf("iteration %d, residual %.2e", it, res))
+		}
+		if res < bestRes {
+			bestRes = res
+			copy(best, x)
+		}
+		if res <= tol {
+			break
+		}
+		if res < freezeBelowRes && !s.freezeB {
+			s.freezeB = true
+			acc.reset()
+		}
+		if res > 4*prevRes {
+			// The accelerated step overshot: go back to the best point, damp, restart history.
+			copy(x, best)
+			mix /= 2
+			acc.reset()
+			prevRes = bestRes
+			if mix < 1e-6 {
+				break
+			}
+			continue
+		}
+		prevRes = res
+		acc.step(x, fx, mix)
+	}
+	if res > tol {
+		return nil, fmt.Errorf("numeric: SD iteration did not converge at q=%g beta=%g (points %d): residual %.3g after %d iterations (tolerance %.3g); try a looser tolerance, more points, or a warm start from a nearby beta", q, beta, 2*m, bestRes, it-1, tol)
+	}
+	lv := &Level{Q: q, Beta: beta, Points: 2 * m, Iterations: it, Residual: res, r: x}
+	lv.LogZ, lv.E = s.thermo(x)
+	lv.Tau = make([]float64, m+1)
+	lv.G = make([]float64, m+1)
+	lv.G[0] = 0.5
+	s.timeG(lv.G[1:], x)
+	for k := range lv.Tau {
+		lv.Tau[k] = float64(k) * gr.h
+	}
+	if math.IsNaN(lv.LogZ) || math.IsNaN(lv.E) {
+		return nil, fmt.Errorf("numeric: NaN in the thermodynamics at q=%g beta=%g (points %d)", q, beta, 2*m)
+	}
+	return lv, nil
+}
+
+// thermo returns log Z and E for the remainder x (assumed converged).
+func (s *sdMap) thermo(x []float64) (logZ, e float64) {
+	q := s.q
+	fx := make([]float64, s.m)
+	gp0 := s.apply(fx, x) // leaves Sigma in s.sf/s.mb state
+	sig0 := 1 / q
+	c := math.Sqrt(s.sigmaB(gp0)*s.sigmaB(gp0) + sig0)
+	sum := 0.0
+	for n, w := range s.w {
+		sigma := s.sf[n] + sig0*coshRatioFreq(s.b, w)
+		sum += math.Log1p(sigma/w) - 2*sig0/(w*w+c*c)
+	}
+	sum += sig0 * s.beta * math.Tanh(c*s.beta/2) / (2 * c)
+	logZ = 0.5*math.Ln2 + sum + 0.5*s.beta*(1-1/q)*gp0
+	return logZ, gp0 / q
+}
+
+// warmStart fills x with the remainder of a previous solution mapped onto
+// this grid: G is interpolated linearly in tau/beta.
+func warmStart(s *sdMap, x []float64, warm *Level) {
+	gt := make([]float64, s.m)
+	mw := len(warm.G) - 1
+	for k := range gt {
+		u := s.tau[k] / s.beta // in (0, 1/2]
+		p := u * float64(2*mw)
+		i := int(p)
+		if i >= mw {
+			gt[k] = warm.G[mw]
+		} else {
+			f := p - float64(i)
+			gt[k] = (1-f)*warm.G[i] + f*warm.G[i+1]
+		}
+		gt[k] -= s.gmTime[k]
+	}
+	s.toFreq(x, gt)
+}
