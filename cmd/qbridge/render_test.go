@@ -32,7 +32,7 @@ func TestFmtBig(t *testing.T) {
 
 func sampleOutput() *Output {
 	return &Output{
-		JSON: map[string]any{"quantity": "b", "values": []string{"0.1"}},
+		JSON:   map[string]any{"quantity": "b", "values": []string{"0.1"}},
 		Tables: []Table{{Title: "t_1", Header: []string{"n", "h_n"}, Rows: [][]string{{"1", "3.77"}, {"2", "5.68"}}}},
 		Notes:  []string{"method: test"},
 	}
