@@ -200,7 +200,7 @@ func BigZeta(s *big.Float, prec uint) (*big.Float, error) {
 	if s.Sign() >= 0 {
 		return BigHurwitzZeta(s, big.NewFloat(1), prec)
 	}
-	half := new(big.Float).SetPrec(s.Prec() + 1).SetMantExp(s, -1)
+	half := new(big.Float).SetPrec(s.Prec()+1).SetMantExp(s, -1)
 	if half.IsInt() {
 		return new(big.Float).SetPrec(prec), nil
 	}
