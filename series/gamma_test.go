@@ -28,7 +28,7 @@ func closeTo(got, want *big.Float, bits int) bool {
 	if got == nil || want == nil {
 		return false
 	}
-	d := new(big.Float).SetPrec(got.Prec() + 64).Sub(got, want)
+	d := new(big.Float).SetPrec(got.Prec()+64).Sub(got, want)
 	if d.Sign() == 0 {
 		return true
 	}
@@ -71,6 +71,7 @@ type golden struct {
 	CLogGamma  []struct {
 		Re, Im, Vre, Vim string
 	} `json:"cloggamma"`
+	Constants map[string]string `json:"constants"`
 }
 
 func loadGolden(t *testing.T) *golden {
@@ -363,5 +364,17 @@ for x in sys.argv[1:]:
 		checkClose(t, "psi("+f[0]+")", d, f[3], bits-8)
 		checkClose(t, "psi2("+f[0]+")", p2, f[4], bits)
 		checkClose(t, "zeta(3.5, |x|+0.1) at x = "+f[0], z, f[5], bits)
+	}
+}
+
+func TestSpecialExpMatchesBigExp(t *testing.T) {
+	// specialExp against the package's BigExp (bigfloat, Newton on log).
+	for _, xs := range []string{"1e-30", "0.5", "-3.25", "123.456", "-700.1", "5e6"} {
+		for _, p := range []uint{53, 333, 1000} {
+			x := parseBig(t, xs, p)
+			if !closeTo(specialExp(x, p), BigExp(x, p+10), int(p)-1) {
+				t.Errorf("specialExp(%s) at %d bits disagrees with BigExp", xs, p)
+			}
+		}
 	}
 }

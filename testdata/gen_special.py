@@ -45,11 +45,13 @@ def main():
     with mp.workdps(200):
         rc = mpmath.taylor(lambda t: mpmath.rgamma(-3 + t), 0, 15)
     out["rgamma_taylor_m3"] = [s(v) for v in rc]
-    cz = [(0.3, 2), (-2.3, 0.1), (5, -7), (-40.5, 3), (0.5, 100), (1, 0.001), (-2.5, 0), (12.25, 0)]
+    cz = [("0.3", "2"), ("-2.3", "0.1"), ("5", "-7"), ("-40.5", "3"), ("0.5", "100"), ("1", "0.001"),
+          ("-2.5", "0"), ("12.25", "0"), ("-0.7", "-0.2")]
     out["cloggamma"] = []
     for re, im in cz:
-        v = mpmath.loggamma(mpc(re, im))
-        out["cloggamma"].append({"re": repr(re), "im": repr(im), "vre": s(v.real), "vim": s(v.imag)})
+        v = mpmath.loggamma(mpc(mpf(re), mpf(im)))
+        out["cloggamma"].append({"re": re, "im": im, "vre": s(v.real), "vim": s(v.imag)})
+    out["constants"] = {"euler": s(mpmath.euler), "zeta3": s(mpmath.zeta(3)), "pi": s(mpmath.pi)}
     with open("special_golden.json", "w") as f:
         json.dump(out, f, indent=1)
         f.write("\n")
