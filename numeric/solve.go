@@ -192,10 +192,18 @@ func Solve(p Params) (*Solution, error) {
 	return sol, nil
 }
 
-// continuation solves at beta on n points from a cold start, first walking
-// up in beta from a small value on grids of the same spacing when beta is large.
+// continuation solves at beta on n points from a cold start. A coarse grid
+// (spacing about 1/coarsePerBeta) is walked up in beta from a small value,
+// then refined by doubling the points at fixed beta: the coarse solution's
+// coefficients are an excellent start on the finer grid, since grids of the
+// same beta differ only by the O(h^4) discretisation error.
 func continuation(q, beta float64, n int, tol float64, progress func(float64, string)) (*Level, error) {
-	const start, factor = 64.0, 4.0
+	const start, factor, coarsePerBeta = 64.0, 4.0, 8.0
+	m := n / 2
+	mc := m
+	for mc > 256 && float64(mc/2) >= coarsePerBeta*beta {
+		mc /= 2
+	}
 	var warm *Level
 	b := beta
 	var steps []float64
@@ -204,15 +212,32 @@ func continuation(q, beta float64, n int, tol float64, progress func(float64, st
 		steps = append([]float64{b}, steps...)
 	}
 	for _, bs := range steps {
-		m := int(float64(n/2) * bs / beta)
-		m = max(m, 16)
-		lv, err := solveLevel(q, bs, m, math.Max(tol, 1e-8), warm, nil)
+		ms := max(int(float64(mc)*bs/beta), 16)
+		lv, err := solveLevel(q, bs, ms, math.Max(tol, 1e-8), warm, nil)
 		if err != nil {
 			return nil, err
 		}
 		warm = lv
 	}
-	return solveLevel(q, beta, n/2, tol, warm, progress)
+	// Work of the refinement sweep, for progress: grid sizes mc, 2mc, ..., m.
+	total, done := 0.0, 0.0
+	for k := mc; k <= m; k *= 2 {
+		total += float64(k)
+	}
+	for k := mc; k <= m; k *= 2 {
+		var sub func(float64, string)
+		if progress != nil {
+			d, share := done, float64(k)/total
+			sub = func(f float64, s string) { progress(d+share*f, s) }
+		}
+		lv, err := solveLevel(q, beta, k, tol, warm, sub)
+		if err != nil {
+			return nil, err
+		}
+		warm = lv
+		done += float64(k) / total
+	}
+	return warm, nil
 }
 
 // derivative returns -d log Z/d beta on lv's grid (same number of points)
