@@ -16,6 +16,7 @@ type Level struct {
 	LogZ       float64   // log Z / N on this grid
 	E          float64   // E / N = G'(0+)/q on this grid
 	r          []float64 // remainder g - model, the iteration variable
+	sigmaB     float64   // Sigma model parameter the solution was found with
 }
 
 // iterLimits bounds the fixed-point iteration.
@@ -33,6 +34,11 @@ func solveLevel(q, beta float64, m int, tol float64, warm *Level, progress func(
 	x := make([]float64, m)
 	if warm != nil {
 		warmStart(s, x, warm)
+		if warm.Q == q && warm.Beta == beta && warm.sigmaB > 0 {
+			// Same problem on another grid: its b is right to the
+			// discretisation error, so the map can be fixed from the start.
+			s.b, s.freezeB = warm.sigmaB, true
+		}
 	}
 	fx := make([]float64, m)
 	best := make([]float64, m)
@@ -100,7 +106,7 @@ func solveLevel(q, beta float64, m int, tol float64, warm *Level, progress func(
 	}
 	// Release the iteration's work space before the result is built.
 	acc, best = nil, nil
-	lv := &Level{Q: q, Beta: beta, Points: 2 * m, Iterations: it, Residual: res, r: x}
+	lv := &Level{Q: q, Beta: beta, Points: 2 * m, Iterations: it, Residual: res, r: x, sigmaB: s.b}
 	lv.LogZ, lv.E = s.thermo(x, fx)
 	lv.Tau = make([]float64, m+1)
 	lv.G = make([]float64, m+1)
