@@ -178,9 +178,9 @@ func Solve(p Params) (*Solution, error) {
 	sol.LogZ, sol.LogZErr = richardson(pick(func(l *Level) float64 { return l.LogZ }))
 	sol.E, sol.EErr = richardson(pick(func(l *Level) float64 { return l.E }))
 	// The energy is not variational: a residual tol shifts it by about tol |E|.
-	eTol = 10 * p.Tol * math.Abs(sol.E)
+	eTol = p.Tol * math.Abs(sol.E)
 	sol.EErr += eTol
-	sol.LogZErr += 10 * p.Tol * math.Abs(sol.LogZ)
+	sol.LogZErr += p.Tol * math.Abs(sol.LogZ)
 	sol.S = sol.LogZ + p.Beta*sol.E
 	sol.SErr = sol.LogZErr + p.Beta*sol.EErr
 	if !p.SkipCheck {
