@@ -1,8 +1,9 @@
 package numeric
 
-// Defaults of the ladder behind GroundQuick (and the ground command).
+// Defaults of the ladder behind GroundQuick (and the ground command). The
+// ladder starts at GroundBetaMax/GroundBetaSpan.
 const (
-	GroundBetaMin       = 25.0
+	GroundBetaSpan      = 160.0
 	GroundBetaMax       = 4000.0
 	GroundSteps         = 24
 	GroundPointsPerBeta = 64.0
@@ -10,14 +11,13 @@ const (
 )
 
 // GroundLadder returns the ladder parameters GroundQuick uses at q, ending at
-// betaMax (0 means GroundBetaMax); the ladder starts at betaMax/160, but not
-// below GroundBetaMin/4 or above GroundBetaMin when betaMax is the default.
+// betaMax (0 means GroundBetaMax) and starting at betaMax/GroundBetaSpan.
 func GroundLadder(q, betaMax float64, progress func(float64, string)) LadderParams {
 	if betaMax == 0 {
 		betaMax = GroundBetaMax
 	}
 	return LadderParams{
-		Q: q, BetaMin: betaMax / 160, BetaMax: betaMax, Steps: GroundSteps,
+		Q: q, BetaMin: betaMax / GroundBetaSpan, BetaMax: betaMax, Steps: GroundSteps,
 		PointsPerBeta: GroundPointsPerBeta, Tol: GroundTol, Progress: progress,
 	}
 }
