@@ -27,3 +27,12 @@ func BenchmarkSolveQ4Beta1000(b *testing.B) {
 	b.ReportMetric(float64(after.HeapSys)/1e6, "heapSysMB")
 	b.ReportMetric(float64(after.TotalAlloc-before.TotalAlloc)/float64(b.N)/1e6, "allocMB/op")
 }
+
+// BenchmarkGroundQuickQ4 is the default ladder and joint fits at q = 4.
+func BenchmarkGroundQuickQ4(b *testing.B) {
+	for i := 0; i < b.N; i++ {
+		if _, err := GroundQuick(4, nil); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

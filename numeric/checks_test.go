@@ -69,20 +69,70 @@ func TestEnergyDerivative(t *testing.T) {
 	}
 }
 
-// Fitted S_0 against Kitaev's exact formula (MS 2016 sec. 2.6) at q = 3, 4, 6.
+// Fitted S_0 against Kitaev's exact formula (MS 2016 sec. 2.6) at q = 3, 4, 6:
+// the joint fit must hit it to 1e-9 and within three times its own error.
 func TestFittedS0(t *testing.T) {
 	for _, q := range []float64{3, 4, 6} {
-		lad, err := Ladder(LadderParams{Q: q, BetaMin: 50, BetaMax: 2000, Steps: 16})
+		g, err := GroundQuick(q, nil)
 		if err != nil {
 			t.Fatal(err)
 		}
-		g, err := FitGround(q, lad)
-		if err != nil {
-			t.Fatal(err)
+		if d := math.Abs(g.S0 - g.S0Exact); d > 1e-9 || d > 3*g.S0Err {
+			t.Errorf("q=%g: fitted S0 %.13g ± %.1e, exact %.13g", q, g.S0, g.S0Err, g.S0Exact)
 		}
-		if d := math.Abs(g.S0 - g.S0Exact); d > 1e-6 || d > 3*g.S0Err {
-			t.Errorf("q=%g: fitted S0 %.12g ± %.1e, exact %.12g", q, g.S0, g.S0Err, g.S0Exact)
+	}
+}
+
+// The joint fit recovers the coefficients of an exact model of log Z and E
+// (synthetic data with the correction powers the fit uses, errors 1e-13).
+func TestFitJointRecoversModel(t *testing.T) {
+	h1 := FirstDimension(4)
+	exps := append([]float64{1}, correctionPowers(h1)[:4]...)
+	coef := []float64{2 * math.Pi * math.Pi * 0.007, -0.3, 0.8, 2, -5}
+	e0, s0 := -0.0574, 0.2324
+	var lad []*Solution
+	for i := 0; i < 20; i++ {
+		beta := 30 * math.Pow(100, float64(i)/19)
+		s := &Solution{Beta: beta}
+		s.LogZ, s.E = -beta*e0+s0, e0
+		for k, p := range exps {
+			s.LogZ += coef[k] * math.Pow(beta, -p)
+			s.E += p * coef[k] * math.Pow(beta, -p-1)
 		}
+		s.LogZErr, s.EErr = 1e-13*beta, 1e-15
+		lad = append(lad, s)
+	}
+	f, err := fitJoint(lad, exps)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(f.E0-e0) > 1e-14 || math.Abs(f.S0-s0) > 1e-11 || math.Abs(f.AlphaS-0.007) > 1e-10 {
+		t.Errorf("fit E0 %.16g S0 %.14g alphaS %.12g, model %g %g 0.007", f.E0, f.S0, f.AlphaS, e0, s0)
+	}
+	for k := range coef {
+		if math.Abs(f.Coef[k]-coef[k]) > 1e-6*math.Max(1, math.Abs(coef[k])) {
+			t.Errorf("c_%d = %.10g, model %g", k, f.Coef[k], coef[k])
+		}
+	}
+}
+
+// A level refined from a coarse grid by zero-padding its coefficients must
+// land on the same discrete solution as a solve started on that grid.
+func TestRefineMatchesDirect(t *testing.T) {
+	const q, beta, m = 4.0, 300.0, 1 << 13
+	direct, err := solveLevel(q, beta, m, 1e-14, nil, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	refined, err := continuation(q, beta, 2*m, 1e-14, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if d := math.Abs(direct.LogZ - refined.LogZ); d > 1e-11 {
+		t.Errorf("log Z direct %.16g, refined %.16g", direct.LogZ, refined.LogZ)
+	}
+	if d := math.Abs(direct.E - refined.E); d > 1e-14 {
+		t.Errorf("E direct %.17g, refined %.17g", direct.E, refined.E)
 	}
 }
 
@@ -90,11 +140,7 @@ func TestFittedS0(t *testing.T) {
 // MS 2016 / Garcia-Garcia-Verbaarschot arXiv:1610.03816), S_0 = 0.2324 and
 // alpha_S ~ 0.007 (Maldacena-Stanford arXiv:1604.07818).
 func TestPublishedQ4(t *testing.T) {
-	lad, err := Ladder(LadderParams{Q: 4, BetaMin: 50, BetaMax: 2000, Steps: 16})
-	if err != nil {
-		t.Fatal(err)
-	}
-	g, err := FitGround(4, lad)
+	g, err := GroundQuick(4, nil)
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -12,7 +12,14 @@
 // each number has an error estimate, and E is checked against
 // -d log Z/d beta. Non-convergence and NaNs are errors, never numbers.
 //
+// A cold start solves on a coarse grid (a few points per unit of beta,
+// walking up in beta) and refines by doubling the points at fixed beta: grids
+// of the same beta share their Matsubara frequencies, so the coarse
+// coefficients, zero-padded, start the finer grid within its discretisation
+// error and it converges in a few iterations.
+//
 // Solve does one temperature, Ladder a geometric sequence of temperatures
-// with continuation, FitGround the low-temperature fits, ExactS0 the exact
-// zero-temperature entropy for comparison.
+// with continuation, FitGround the low-temperature fits (one expansion of
+// log Z fitted to log Z and E jointly), GroundQuick the default ladder and
+// fits, ExactS0 the exact zero-temperature entropy for comparison.
 package numeric

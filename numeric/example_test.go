@@ -2,6 +2,7 @@ package numeric_test
 
 import (
 	"fmt"
+	"math"
 
 	"qbridge/numeric"
 )
@@ -24,7 +25,7 @@ func ExampleExactS0() {
 }
 
 func ExampleFitGround() {
-	lad, err := numeric.Ladder(numeric.LadderParams{Q: 4, BetaMin: 50, BetaMax: 2000, Steps: 16})
+	lad, err := numeric.Ladder(numeric.LadderParams{Q: 4, BetaMin: 25, BetaMax: 2000, Steps: 20, PointsPerBeta: 64, Tol: 1e-14})
 	if err != nil {
 		fmt.Println(err)
 		return
@@ -34,6 +35,18 @@ func ExampleFitGround() {
 		fmt.Println(err)
 		return
 	}
-	fmt.Printf("E0 = %.8f, S0 = %.5f (exact %.5f), alpha_S = %.4f\n", g.E0, g.S0, g.S0Exact, g.AlphaS)
-	// Output: E0 = -0.05745988, S0 = 0.23242 (exact 0.23242), alpha_S = 0.0071
+	fmt.Printf("E0 = %.11f, S0 = %.9f (exact %.9f), alpha_S = %.6f\n", g.E0, g.S0, g.S0Exact, g.AlphaS)
+	// Output: E0 = -0.05745987854, S0 = 0.232423850 (exact 0.232423850), alpha_S = 0.007093
+}
+
+// GroundQuick is the default ladder and fit; at q = 2 (free fermions with the
+// semicircle density) E_0 = -2/(3 pi) and alpha_S = 1/(24 pi) exactly.
+func ExampleGroundQuick() {
+	g, err := numeric.GroundQuick(2, nil)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("E0 = %.12f (exact %.12f), alpha_S = %.8f (exact %.8f)\n", g.E0, -2/(3*math.Pi), g.AlphaS, 1/(24*math.Pi))
+	// Output: E0 = -0.212206590789 (exact -0.212206590789), alpha_S = 0.01326291 (exact 0.01326291)
 }

@@ -8,20 +8,30 @@ import (
 	"gonum.org/v1/gonum/mat"
 )
 
-// Fit is one least-squares fit of a low-temperature expansion
-// y(T) = sum_i Coef[i] T^Exponents[i] over a window of the ladder.
+// Fit is one weighted least-squares fit of the low-temperature expansion
+//
+//	log Z(beta) = -beta E_0 + S_0 + sum_k c_k T^{p_k},  T = 1/beta,
+//
+// to the log Z and E = -d log Z/d beta data of a window of the ladder at
+// once: E(T) = E_0 + sum_k p_k c_k T^{p_k+1} and S = log Z + beta E follow
+// from the same coefficients. p_0 = 1 is the Schwarzian term,
+// c_0 = 2 pi^2 alpha_S.
 type Fit struct {
-	Quantity         string    // "E" or "S"
 	BetaMin, BetaMax float64   // window of beta*script-J used
-	Exponents        []float64 // powers of T in the model
-	Coef             []float64 // fitted coefficients, same order
-	Points           int       // data points in the window
-	RMS              float64   // root-mean-square residual of the fit
-	Accepted         bool      // used for the central value and spread
+	Exponents        []float64 // p_k, powers of T in log Z beyond -beta E_0 + S_0
+	E0, S0           float64
+	Coef             []float64 // c_k, same order as Exponents
+	E0Err, S0Err     float64   // statistical errors (scaled by sqrt(chi2/dof) when that exceeds 1)
+	AlphaS           float64
+	AlphaSErr        float64
+	Points           int     // ladder points in the window (each gives two data)
+	Chi2             float64 // chi^2 per degree of freedom with the solver's error estimates
+	Accepted         bool    // used for the central value and spread
 }
 
-// Ground is the low-temperature extraction: E_0, S_0 and alpha_S, each from
-// the spread over fit windows and fit orders, with the exact S_0 beside.
+// Ground is the low-temperature extraction: E_0, S_0 and alpha_S from joint
+// fits of log Z and E, with errors from the spread over fit windows and fit
+// orders plus the statistical error, and the exact S_0 beside.
 type Ground struct {
 	Q                 float64
 	H1                float64 // first operator dimension above 2, sets the correction exponents
@@ -33,105 +43,105 @@ type Ground struct {
 	Ladder            []*Solution
 }
 
-// correctionPowers returns the exponents p of the corrections beta^{-p} to
-// log Z = -beta E_0 + S_0 + c/(2 beta): integer powers from the Schwarzian's
-// own expansion and h_1 - 1, h_1 from the first non-soft operator
-// (Maldacena-Stanford arXiv:1604.07818 sec. 4), sorted and without repeats.
+// correctionPowers returns the powers p of T in the corrections to
+// log Z = -beta E_0 + S_0 + 2 pi^2 alpha_S T, in the order they are added to
+// the fits: the Schwarzian's own expansion in T (integers) and the first
+// non-soft operator, whose one-point function contributes T^{h_1 - 1}, its
+// mixing with the Schwarzian T^{h_1} and its second order T^{2 h_1 - 2}
+// (Maldacena-Stanford arXiv:1604.07818 sec. 4). Repeats are dropped.
 func correctionPowers(h1 float64) []float64 {
-	ps := []float64{2, 3, 4}
+	ps := []float64{2, 3, 4, 5, 6}
 	if !math.IsNaN(h1) {
-		ps = append(ps, h1-1, h1)
+		ps = []float64{2, h1 - 1, 3, h1, 4, 2*h1 - 2, 5, 6}
 	}
-	sort.Float64s(ps)
 	out := ps[:0]
 	for _, p := range ps {
-		if len(out) == 0 || math.Abs(p-out[len(out)-1]) > 1e-6 {
+		dup := false
+		for _, o := range out {
+			dup = dup || math.Abs(p-o) < 1e-6
+		}
+		if !dup {
 			out = append(out, p)
 		}
 	}
 	return out
 }
 
-// FitGround fits E(T) = E_0 + 2 pi^2 alpha_S T^2 + sum a_p T^{p+1} and
-// S(T) = S_0 + 4 pi^2 alpha_S T + sum b_p T^p (PHYSICS sec. 3) over windows
-// that drop the highest temperatures and over the number of correction terms,
-// and reports the median of the accepted fits with half their spread as the
-// error (plus the largest per-point error of the data).
+// fitOrders are the numbers of correction terms beyond the Schwarzian tried
+// in FitGround.
+var fitOrders = []int{3, 4, 5, 6}
+
+// FitGround fits log Z and E of the ladder jointly (see Fit) over windows
+// that drop the highest temperatures, windows that drop the lowest ones, and
+// the number of correction terms. Each quantity is the median over the
+// accepted fits (see below), its error half their spread plus their median
+// statistical error.
 func FitGround(q float64, ladder []*Solution) (*Ground, error) {
-	if len(ladder) < 5 {
-		return nil, fmt.Errorf("%w: need at least 5 ladder points for the fits, got %d", ErrInput, len(ladder))
+	if len(ladder) < 8 {
+		return nil, fmt.Errorf("%w: need at least 8 ladder points for the fits, got %d", ErrInput, len(ladder))
 	}
 	pts := append([]*Solution(nil), ladder...)
 	sort.Slice(pts, func(i, j int) bool { return pts[i].Beta < pts[j].Beta })
 	g := &Ground{Q: q, H1: FirstDimension(q), S0Exact: ExactS0(q), Ladder: pts}
 	corr := correctionPowers(g.H1)
-	dataE, dataS := 0.0, 0.0
-	var medE, medS []float64
-	for _, s := range pts {
-		dataE = math.Max(dataE, s.EErr)
-		dataS = math.Max(dataS, s.SErr)
-		medE = append(medE, s.EErr)
-		medS = append(medS, s.SErr)
-	}
-	typE, _ := medianSpread(medE)
-	typS, _ := medianSpread(medS)
-	var e0s, s0s, alphas []float64
 	n := len(pts)
-	for k := 0; k <= 3 && k <= len(corr); k++ {
-		for drop := 0; n-drop >= k+2+3; drop += max(1, n/8) {
-			win := pts[drop:]
-			fe, err := fitOne("E", win, append([]float64{0, 2}, shift(corr[:k], 1)...))
-			if err != nil {
-				return nil, err
+	step := max(1, n/8)
+	for _, k := range fitOrders {
+		if k > len(corr) {
+			continue
+		}
+		exps := append([]float64{1}, corr[:k]...)
+		for lo := 0; lo <= n/2; lo += step {
+			for _, hi := range []int{n, n - step} {
+				win := pts[lo:hi]
+				if 2*len(win)-len(exps)-2 < 4 {
+					continue
+				}
+				f, err := fitJoint(win, exps)
+				if err != nil {
+					return nil, err
+				}
+				g.Fits = append(g.Fits, f)
 			}
-			fs, err := fitOne("S", win, append([]float64{0, 1}, corr[:k]...))
-			if err != nil {
-				return nil, err
-			}
-			g.Fits = append(g.Fits, fe, fs)
 		}
 	}
-	// Accept fits whose residual is within a factor 4 of the best one (or of the
-	// typical data error): under-fitted models leave large systematic residuals.
-	for _, qty := range []string{"E", "S"} {
-		best := math.Inf(1)
-		for _, f := range g.Fits {
-			if f.Quantity == qty {
-				best = math.Min(best, f.RMS)
-			}
+	if len(g.Fits) == 0 {
+		return nil, fmt.Errorf("%w: %d ladder points are too few for the fits", ErrInput, n)
+	}
+	// Accept fits that describe the data (chi^2 per degree of freedom within
+	// a factor 4 of the best, or of 1) and that still constrain alpha_S, the
+	// most fragile output (statistical error within a factor 20 of the best):
+	// a window too narrow for its order says nothing, and would only widen the
+	// spread.
+	best, sharpest := math.Inf(1), math.Inf(1)
+	for _, f := range g.Fits {
+		best = math.Min(best, f.Chi2)
+	}
+	for _, f := range g.Fits {
+		if f.Chi2 <= 4*math.Max(best, 1) {
+			sharpest = math.Min(sharpest, f.AlphaSErr)
 		}
-		floor := typE
-		if qty == "S" {
-			floor = typS
-		}
-		for i := range g.Fits {
-			f := &g.Fits[i]
-			if f.Quantity == qty && f.RMS <= 4*math.Max(best, floor) {
-				f.Accepted = true
-				if qty == "E" {
-					e0s = append(e0s, f.Coef[0])
-					alphas = append(alphas, f.Coef[1]/(2*math.Pi*math.Pi))
-				} else {
-					s0s = append(s0s, f.Coef[0])
-					alphas = append(alphas, f.Coef[1]/(4*math.Pi*math.Pi))
-				}
-			}
+	}
+	var e0s, s0s, as, e0Stat, s0Stat, aStat []float64
+	for i := range g.Fits {
+		f := &g.Fits[i]
+		if f.Chi2 <= 4*math.Max(best, 1) && f.AlphaSErr <= 20*sharpest {
+			f.Accepted = true
+			e0s, s0s, as = append(e0s, f.E0), append(s0s, f.S0), append(as, f.AlphaS)
+			e0Stat, s0Stat, aStat = append(e0Stat, f.E0Err), append(s0Stat, f.S0Err), append(aStat, f.AlphaSErr)
 		}
 	}
 	g.E0, g.E0Err = medianSpread(e0s)
 	g.S0, g.S0Err = medianSpread(s0s)
-	g.AlphaS, g.AlphaSErr = medianSpread(alphas)
-	g.E0Err += dataE
-	g.S0Err += dataS
+	g.AlphaS, g.AlphaSErr = medianSpread(as)
+	// Add the typical statistical error of the accepted fits.
+	st, _ := medianSpread(e0Stat)
+	g.E0Err += st
+	st, _ = medianSpread(s0Stat)
+	g.S0Err += st
+	st, _ = medianSpread(aStat)
+	g.AlphaSErr += st
 	return g, nil
-}
-
-func shift(p []float64, d float64) []float64 {
-	out := make([]float64, len(p))
-	for i, v := range p {
-		out[i] = v + d
-	}
-	return out
 }
 
 // medianSpread returns the median and half the range.
@@ -148,34 +158,88 @@ func medianSpread(v []float64) (float64, float64) {
 	return med, (s[len(s)-1] - s[0]) / 2
 }
 
-// fitOne is a least-squares fit in the scaled variable t = T/T_max (QR).
-func fitOne(qty string, win []*Solution, exps []float64) (Fit, error) {
-	tmax := 1 / win[0].Beta
-	a := mat.NewDense(len(win), len(exps), nil)
-	y := mat.NewVecDense(len(win), nil)
+// Error floors of the data: a few ulps accumulated over the grid sums.
+const (
+	relFloorLogZ = 1e-15
+	relFloorE    = 1e-14
+)
+
+// fitJoint is the weighted least-squares fit of Fit to log Z and E of win,
+// by QR on equilibrated columns; the statistical errors come from the
+// inverse of R.
+func fitJoint(win []*Solution, exps []float64) (Fit, error) {
+	nw, np := len(win), len(exps)+2
+	a := mat.NewDense(2*nw, np, nil)
+	y := mat.NewVecDense(2*nw, nil)
 	for i, s := range win {
-		t := 1 / s.Beta / tmax
-		for j, e := range exps {
-			a.Set(i, j, math.Pow(t, e))
+		t := 1 / s.Beta
+		wz := 1 / math.Max(s.LogZErr, relFloorLogZ*math.Abs(s.LogZ))
+		we := 1 / math.Max(s.EErr, relFloorE*math.Abs(s.E))
+		a.Set(2*i, 0, -s.Beta*wz)
+		a.Set(2*i, 1, wz)
+		a.Set(2*i+1, 0, we)
+		for j, p := range exps {
+			a.Set(2*i, j+2, math.Pow(t, p)*wz)
+			a.Set(2*i+1, j+2, p*math.Pow(t, p+1)*we)
 		}
-		if qty == "E" {
-			y.SetVec(i, s.E)
-		} else {
-			y.SetVec(i, s.S)
+		y.SetVec(2*i, s.LogZ*wz)
+		y.SetVec(2*i+1, s.E*we)
+	}
+	scale := make([]float64, np)
+	for j := range scale {
+		scale[j] = mat.Norm(a.ColView(j), 2)
+		for i := 0; i < 2*nw; i++ {
+			a.Set(i, j, a.At(i, j)/scale[j])
 		}
 	}
+	fail := func(err error) (Fit, error) {
+		return Fit{}, fmt.Errorf("numeric: joint fit with exponents %v over beta %g..%g failed: %v", exps, win[0].Beta, win[nw-1].Beta, err)
+	}
+	var qr mat.QR
+	qr.Factorize(a)
 	var x mat.VecDense
-	if err := x.SolveVec(a, y); err != nil {
-		return Fit{}, fmt.Errorf("numeric: %s fit with exponents %v failed: %v", qty, exps, err)
+	if err := qr.SolveVecTo(&x, false, y); err != nil {
+		return fail(err)
 	}
 	var r mat.VecDense
 	r.MulVec(a, &x)
 	r.SubVec(&r, y)
-	f := Fit{Quantity: qty, BetaMin: win[0].Beta, BetaMax: win[len(win)-1].Beta, Exponents: exps, Points: len(win)}
-	f.RMS = math.Sqrt(mat.Dot(&r, &r) / float64(len(win)))
-	f.Coef = make([]float64, len(exps))
-	for j, e := range exps {
-		f.Coef[j] = x.AtVec(j) / math.Pow(tmax, e)
+	dof := 2*nw - np
+	chi2 := mat.Dot(&r, &r) / float64(dof)
+	var rd mat.Dense
+	qr.RTo(&rd)
+	upper := make([]float64, np*np)
+	for i := 0; i < np; i++ {
+		for j := i; j < np; j++ {
+			upper[i*np+j] = rd.At(i, j)
+		}
+	}
+	var rinv mat.TriDense
+	if err := rinv.InverseTri(mat.NewTriDense(np, mat.Upper, upper)); err != nil {
+		return fail(err)
+	}
+	// cov = R^{-1} R^{-T}, in the scaled variables.
+	sig := func(j int) float64 {
+		s := 0.0
+		for k := j; k < np; k++ {
+			v := rinv.At(j, k)
+			s += v * v
+		}
+		return math.Sqrt(s*math.Max(1, chi2)) / scale[j]
+	}
+	coef := make([]float64, np)
+	for j := range coef {
+		coef[j] = x.AtVec(j) / scale[j]
+	}
+	f := Fit{
+		BetaMin: win[0].Beta, BetaMax: win[nw-1].Beta, Exponents: exps, Points: nw, Chi2: chi2,
+		E0: coef[0], S0: coef[1], Coef: coef[2:],
+		E0Err: sig(0), S0Err: sig(1),
+	}
+	f.AlphaS = f.Coef[0] / (2 * math.Pi * math.Pi)
+	f.AlphaSErr = sig(2) / (2 * math.Pi * math.Pi)
+	if math.IsNaN(f.E0) || math.IsNaN(f.S0) || math.IsNaN(f.AlphaS) {
+		return fail(fmt.Errorf("NaN coefficients"))
 	}
 	return f, nil
 }

@@ -15,29 +15,26 @@ import (
 // n = 0..m-1. The discrete pair between the two is a quarter-wave sine
 // transform, which keeps the particle-hole symmetry exact: no complex FFT
 // over [0, beta) whose round-off could seed a symmetry-breaking mode.
+// Grids of the same beta share their Matsubara frequencies, so a solution
+// moves between them by truncating or zero-padding its coefficients.
 type grid struct {
 	q, beta float64
 	m       int
 	h       float64
-	w       []float64 // Matsubara frequencies w_n, n = 0..m-1
-	tau     []float64 // tau_k, k = 1..m (index k-1)
+	dw      float64 // w_n = (2n+1) dw
 	fft     *fourier.QuarterWaveFFT
 }
 
 func newGrid(q, beta float64, m int) *grid {
-	g := &grid{q: q, beta: beta, m: m, h: beta / float64(2*m)}
-	g.w = make([]float64, m)
-	g.tau = make([]float64, m)
-	for n := range g.w {
-		g.w[n] = float64(2*n+1) * math.Pi / beta
-		g.tau[n] = float64(n+1) * g.h
-	}
-	g.fft = fourier.NewQuarterWaveFFT(m)
-	return g
+	return &grid{q: q, beta: beta, m: m, h: beta / float64(2*m), dw: math.Pi / beta, fft: fourier.NewQuarterWaveFFT(m)}
 }
+
+// freq returns the Matsubara frequency w_n.
+func (g *grid) freq(n int) float64 { return float64(2*n+1) * g.dw }
 
 // toFreq sets dst[n] to the trapezoid-rule sine coefficient of f, where
 // f[k-1] = f(tau_k): dst_n = 2h [sum_{k<m} f_k sin(w_n tau_k) + f_m sin(w_n beta/2)/2].
+// dst and f may be the same slice.
 func (g *grid) toFreq(dst, f []float64) {
 	g.fft.SinCoefficients(dst, f)
 	for i := range dst {
@@ -46,6 +43,7 @@ func (g *grid) toFreq(dst, f []float64) {
 }
 
 // toTime is the exact inverse of toFreq: dst_k = (2/beta) sum_n c_n sin(w_n tau_k).
+// dst and c may be the same slice.
 func (g *grid) toTime(dst, c []float64) {
 	g.fft.SinSequence(dst, c)
 	s := 1 / (2 * g.beta)
@@ -64,24 +62,24 @@ func coshRatio(a, tau, beta float64) float64 {
 // an odd Matsubara frequency w: 2w/(w^2 + a^2).
 func coshRatioFreq(a, w float64) float64 { return 2 * w / (w*w + a*a) }
 
-// fillCoshRatio writes coshRatio(a, tau_k) for all grid points, using a
-// multiplicative recurrence refreshed every 64 steps so the cost is mostly
-// multiplications and the round-off stays at a few ulps.
-func (g *grid) fillCoshRatio(dst []float64, a float64) {
+// addCoshRatio adds c coshRatio(a, tau_k) to dst[k-1] for all grid points,
+// using a multiplicative recurrence refreshed every 64 steps so the cost is
+// mostly multiplications and the round-off stays at a few ulps.
+func (g *grid) addCoshRatio(dst []float64, a, c float64) {
 	l := g.beta / 2
-	den := 1 / (1 + math.Exp(-2*a*l))
+	den := c / (1 + math.Exp(-2*a*l))
 	step := math.Exp(-a * g.h)
 	inv := 1 / step
 	var up, down float64
 	for k := range dst {
 		if k%64 == 0 {
-			t := g.tau[k]
+			t := float64(k+1) * g.h
 			up = math.Exp(-a * t)
 			down = math.Exp(-a * (2*l - t))
 		} else {
 			up *= step
 			down *= inv
 		}
-		dst[k] = (up + down) * den
+		dst[k] += (up + down) * den
 	}
 }

@@ -16,6 +16,7 @@ type Level struct {
 	LogZ       float64   // log Z / N on this grid
 	E          float64   // E / N = G'(0+)/q on this grid
 	r          []float64 // remainder g - model, the iteration variable
+	sigmaB     float64   // Sigma model parameter the solution was found with
 }
 
 // iterLimits bounds the fixed-point iteration.
@@ -33,6 +34,11 @@ func solveLevel(q, beta float64, m int, tol float64, warm *Level, progress func(
 	x := make([]float64, m)
 	if warm != nil {
 		warmStart(s, x, warm)
+		if warm.Q == q && warm.Beta == beta && warm.sigmaB > 0 {
+			// Same problem on another grid: its b is right to the
+			// discretisation error, so the map can be fixed from the start.
+			s.b, s.freezeB = warm.sigmaB, true
+		}
 	}
 	fx := make([]float64, m)
 	best := make([]float64, m)
@@ -98,8 +104,10 @@ func solveLevel(q, beta float64, m int, tol float64, warm *Level, progress func(
 	if res > tol {
 		return nil, fmt.Errorf("numeric: SD iteration did not converge at q=%g beta=%g (points %d): residual %.3g after %d iterations (tolerance %.3g); try a looser tolerance, more points, or a warm start from a nearby beta", q, beta, 2*m, bestRes, it-1, tol)
 	}
-	lv := &Level{Q: q, Beta: beta, Points: 2 * m, Iterations: it, Residual: res, r: x}
-	lv.LogZ, lv.E = s.thermo(x)
+	// Release the iteration's work space before the result is built.
+	acc, best = nil, nil
+	lv := &Level{Q: q, Beta: beta, Points: 2 * m, Iterations: it, Residual: res, r: x, sigmaB: s.b}
+	lv.LogZ, lv.E = s.thermo(x, fx)
 	lv.Tau = make([]float64, m+1)
 	lv.G = make([]float64, m+1)
 	lv.G[0] = 0.5
@@ -113,16 +121,17 @@ func solveLevel(q, beta float64, m int, tol float64, warm *Level, progress func(
 	return lv, nil
 }
 
-// thermo returns log Z and E for the remainder x (assumed converged).
-func (s *sdMap) thermo(x []float64) (logZ, e float64) {
+// thermo returns log Z and E for the remainder x (assumed converged); work
+// is scratch of the grid's size.
+func (s *sdMap) thermo(x, work []float64) (logZ, e float64) {
 	q := s.q
-	fx := make([]float64, s.m)
-	gp0 := s.apply(fx, x) // leaves Sigma in s.sf/s.mb state
+	gp0 := s.apply(work, x) // leaves the Sigma remainder's coefficients in s.buf
 	sig0 := 1 / q
 	c := math.Sqrt(s.sigmaB(gp0)*s.sigmaB(gp0) + sig0)
 	sum := 0.0
-	for n, w := range s.w {
-		sigma := s.sf[n] + sig0*coshRatioFreq(s.b, w)
+	for n, sf := range s.buf {
+		w := s.freq(n)
+		sigma := sf + sig0*coshRatioFreq(s.b, w)
 		sum += math.Log1p(sigma/w) - 2*sig0/(w*w+c*c)
 	}
 	sum += sig0 * s.beta * math.Tanh(c*s.beta/2) / (2 * c)
@@ -131,12 +140,19 @@ func (s *sdMap) thermo(x []float64) (logZ, e float64) {
 }
 
 // warmStart fills x with the remainder of a previous solution mapped onto
-// this grid: G is interpolated linearly in tau/beta.
+// this grid. At the same q and beta the Matsubara frequencies coincide and
+// the coefficients are copied (zero-padded or truncated); otherwise G is
+// interpolated linearly in tau/beta.
 func warmStart(s *sdMap, x []float64, warm *Level) {
-	gt := make([]float64, s.m)
+	if warm.Q == s.q && warm.Beta == s.beta && warm.r != nil {
+		n := copy(x, warm.r)
+		clear(x[n:])
+		return
+	}
+	gt := x
 	mw := len(warm.G) - 1
 	for k := range gt {
-		u := s.tau[k] / s.beta // in (0, 1/2]
+		u := float64(k+1) / float64(2*s.m) // tau_k/beta, in (0, 1/2]
 		p := u * float64(2*mw)
 		i := int(p)
 		if i >= mw {

@@ -19,8 +19,7 @@ type sdMap struct {
 	gmTime  []float64 // model of G at tau_k
 	b       float64   // model parameter of Sigma (follows the solution until frozen)
 	freezeB bool
-	// work space
-	gt, st, mb, sf []float64
+	buf     []float64 // G(tau_k), then the Sigma remainder in time and frequency
 }
 
 func newSDMap(gr *grid) *sdMap {
@@ -29,17 +28,12 @@ func newSDMap(gr *grid) *sdMap {
 	m := gr.m
 	s.gm = make([]float64, m)
 	s.gmTime = make([]float64, m)
-	for n, w := range gr.w {
+	for n := range s.gm {
+		w := gr.freq(n)
 		s.gm[n] = w / (w*w + s.a*s.a)
 	}
-	gr.fillCoshRatio(s.gmTime, s.a)
-	for k := range s.gmTime {
-		s.gmTime[k] *= 0.5
-	}
-	s.gt = make([]float64, m)
-	s.st = make([]float64, m)
-	s.mb = make([]float64, m)
-	s.sf = make([]float64, m)
+	gr.addCoshRatio(s.gmTime, s.a, 0.5)
+	s.buf = make([]float64, m)
 	s.b = math.Sqrt((q - 1) * 2 / q)
 	return s
 }
@@ -78,16 +72,28 @@ func powAbs(x, p float64) float64 {
 	return y
 }
 
-// intGq returns int_0^{beta/2} sgn(G)|G|^q dtau by the end-corrected trapezoid
-// rule on the grid, with G(0) = 1/2.
-func (s *sdMap) intGq(gt []float64) float64 {
+// sigmaAndIntGq overwrites gt (G at tau_k) with Sigma = J^2 sgn(G)|G|^{q-1} and
+// returns int_0^{beta/2} |G|^q dtau by the end-corrected trapezoid rule, G(0) = 1/2.
+func (s *sdMap) sigmaAndIntGq(gt []float64) float64 {
 	q := s.q
-	sum := 0.5 * math.Pow(0.5, q)
 	m := len(gt)
-	for k := 0; k < m-1; k++ {
-		sum += powAbs(gt[k], q)
+	gEnd := gt[m-1]
+	sum := 0.5 * math.Pow(0.5, q)
+	if q == 4 { // the common case, without math.Pow
+		for k, g := range gt {
+			g3 := g * g * g
+			sum += g3 * g
+			gt[k] = s.j2 * g3
+		}
+	} else {
+		for k, g := range gt {
+			p := powAbs(g, q-1)
+			sum += p * g
+			gt[k] = s.j2 * p
+		}
 	}
-	sum += 0.5 * powAbs(gt[m-1], q)
+	// The trapezoid rule weights the end point tau = beta/2 by 1/2.
+	sum -= 0.5 * math.Abs(powAbs(gEnd, q))
 	// Euler-Maclaurin end correction: f = G^q has f'(beta/2) = 0 and
 	// f'(0+) = q 2^{1-q} G'(0+) = -2 q 2^{1-q} J^2 I = -2 I, so
 	// I = T + (h^2/12) f'(0+) gives I = T / (1 + h^2/6).
@@ -102,22 +108,22 @@ func (s *sdMap) sigmaB(gp0 float64) float64 {
 	return math.Sqrt((q - 1) * (2/q + 4*(q-2)*gp0*gp0))
 }
 
-// apply evaluates rNew = F(r) and returns G'(0+) of the input.
+// apply evaluates rNew = F(r) and returns G'(0+) of the input. Afterwards
+// s.buf holds the sine coefficients of the Sigma remainder (used by thermo).
 func (s *sdMap) apply(rNew, r []float64) float64 {
 	q := s.q
-	s.timeG(s.gt, r)
-	gp0 := -2 * s.j2 * s.intGq(s.gt)
+	s.timeG(s.buf, r)
+	gp0 := -2 * s.j2 * s.sigmaAndIntGq(s.buf)
 	if !s.freezeB {
 		s.b = s.sigmaB(gp0)
 	}
-	s.fillCoshRatio(s.mb, s.b)
 	sig0 := 1 / q // Sigma(0+) = J^2 2^{1-q}
-	for k, gk := range s.gt {
-		s.st[k] = s.j2*powAbs(gk, q-1) - sig0*s.mb[k]
-	}
-	s.toFreq(s.sf, s.st)
-	for n, w := range s.w {
-		sigma := s.sf[n] + sig0*coshRatioFreq(s.b, w)
+	s.addCoshRatio(s.buf, s.b, -sig0)
+	s.toFreq(s.buf, s.buf)
+	b2 := s.b * s.b
+	for n, sf := range s.buf {
+		w := s.freq(n)
+		sigma := sf + sig0*2*w/(w*w+b2)
 		rNew[n] = 1/(w+sigma) - s.gm[n]
 	}
 	return gp0

@@ -144,10 +144,10 @@ func Solve(p Params) (*Solution, error) {
 		}
 		var lv *Level
 		var err error
-		if warm == nil {
-			lv, err = continuation(p.Q, p.Beta, n, p.Tol, sub)
-		} else {
+		if warm != nil && warm.Q == p.Q && warm.Beta == p.Beta {
 			lv, err = solveLevel(p.Q, p.Beta, n/2, p.Tol, warm, sub)
+		} else {
+			lv, err = startAndRefine(p.Q, p.Beta, n, p.Tol, warm, sub)
 		}
 		if err != nil {
 			return nil, err
@@ -178,9 +178,9 @@ func Solve(p Params) (*Solution, error) {
 	sol.LogZ, sol.LogZErr = richardson(pick(func(l *Level) float64 { return l.LogZ }))
 	sol.E, sol.EErr = richardson(pick(func(l *Level) float64 { return l.E }))
 	// The energy is not variational: a residual tol shifts it by about tol |E|.
-	eTol = 10 * p.Tol * math.Abs(sol.E)
+	eTol = p.Tol * math.Abs(sol.E)
 	sol.EErr += eTol
-	sol.LogZErr += 10 * p.Tol * math.Abs(sol.LogZ)
+	sol.LogZErr += p.Tol * math.Abs(sol.LogZ)
 	sol.S = sol.LogZ + p.Beta*sol.E
 	sol.SErr = sol.LogZErr + p.Beta*sol.EErr
 	if !p.SkipCheck {
@@ -192,27 +192,64 @@ func Solve(p Params) (*Solution, error) {
 	return sol, nil
 }
 
-// continuation solves at beta on n points from a cold start, first walking
-// up in beta from a small value on grids of the same spacing when beta is large.
+// coarsePerBeta sets the coarse grid of a cold or warm start: about this
+// many points per unit of beta*script-J on [0, beta/2].
+const coarsePerBeta = 4.0
+
+// continuation solves at beta on n points from a cold start.
 func continuation(q, beta float64, n int, tol float64, progress func(float64, string)) (*Level, error) {
+	return startAndRefine(q, beta, n, tol, nil, progress)
+}
+
+// startAndRefine solves at beta on n points. A coarse grid (spacing about
+// 1/coarsePerBeta) is solved first, from warm when it is given (any q, beta
+// or grid), otherwise by walking up in beta from a small value; the coarse
+// solution is then refined by doubling the points at fixed beta. Its
+// coefficients are an excellent start on the finer grid, since grids of the
+// same beta differ only by the O(h^4) discretisation error, and the first
+// iterations, which do all the work, run on the cheap grid.
+func startAndRefine(q, beta float64, n int, tol float64, warm *Level, progress func(float64, string)) (*Level, error) {
 	const start, factor = 64.0, 4.0
-	var warm *Level
-	b := beta
-	var steps []float64
-	for b > start {
-		b /= factor
-		steps = append([]float64{b}, steps...)
+	m := n / 2
+	mc := m
+	for mc > 256 && float64(mc/2) >= coarsePerBeta*beta {
+		mc /= 2
 	}
-	for _, bs := range steps {
-		m := int(float64(n/2) * bs / beta)
-		m = max(m, 16)
-		lv, err := solveLevel(q, bs, m, math.Max(tol, 1e-8), warm, nil)
+	if warm == nil {
+		b := beta
+		var steps []float64
+		for b > start {
+			b /= factor
+			steps = append([]float64{b}, steps...)
+		}
+		for _, bs := range steps {
+			ms := max(int(float64(mc)*bs/beta), 16)
+			lv, err := solveLevel(q, bs, ms, math.Max(tol, 1e-8), warm, nil)
+			if err != nil {
+				return nil, err
+			}
+			warm = lv
+		}
+	}
+	// Work of the sweep, for progress: grid sizes mc, 2mc, ..., m.
+	total, done := 0.0, 0.0
+	for k := mc; k <= m; k *= 2 {
+		total += float64(k)
+	}
+	for k := mc; k <= m; k *= 2 {
+		var sub func(float64, string)
+		if progress != nil {
+			d, share := done, float64(k)/total
+			sub = func(f float64, s string) { progress(d+share*f, s) }
+		}
+		lv, err := solveLevel(q, beta, k, tol, warm, sub)
 		if err != nil {
 			return nil, err
 		}
 		warm = lv
+		done += float64(k) / total
 	}
-	return solveLevel(q, beta, n/2, tol, warm, progress)
+	return warm, nil
 }
 
 // derivative returns -d log Z/d beta on lv's grid (same number of points)

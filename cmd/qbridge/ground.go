@@ -4,7 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"strings"
+	"strconv"
 
 	"github.com/spf13/cobra"
 
@@ -21,11 +21,13 @@ var groundCmd = &cobra.Command{
 	Short: "Low-temperature extraction of E_0, S_0 and alpha_S from a ladder of SD solves",
 	Long: `ground solves the Schwinger-Dyson equations on a geometric ladder of beta
 values (each solve started from the previous one, each Richardson-extrapolated in
-the grid spacing) and fits E(T) = E_0 + 2 pi^2 alpha_S T^2 + ... and
-S(T) = S_0 + 4 pi^2 alpha_S T + ... with correction terms T^p (p = 2, 3, 4,
-h_1 - 1, h_1) over several windows and orders. Values are medians of the
-accepted fits, errors half their spread. The exact S_0 (Kitaev's integral)
-is printed beside the fitted one as a check. Units script-J = 1.`,
+the grid spacing) and fits one expansion
+log Z = -beta E_0 + S_0 + 2 pi^2 alpha_S T + sum_k c_k T^{p_k}
+(p_k = 2, h_1 - 1, 3, h_1, 4, ...) to log Z and E = -d log Z/d beta at once,
+over several windows and orders. Values are medians of the accepted fits,
+errors half their spread plus the typical statistical error. The exact S_0
+(Kitaev's integral) is printed beside the fitted one as a check.
+Units script-J = 1.`,
 	Args: cobra.NoArgs,
 	RunE: runGround,
 }
@@ -33,9 +35,9 @@ is printed beside the fitted one as a check. Units script-J = 1.`,
 func init() {
 	f := groundCmd.Flags()
 	f.Float64Var(&groundFlags.Q, "q", 4, "interaction order q (real, >= 2)")
-	f.Float64Var(&groundFlags.BetaMax, "beta-max", 4000, "largest beta*script-J of the ladder")
-	f.Float64Var(&groundFlags.BetaMin, "beta-min", 0, "smallest beta*script-J of the ladder (0 = beta-max/40)")
-	f.IntVar(&groundFlags.Steps, "steps", 16, "number of beta values in the ladder (>= 8)")
+	f.Float64Var(&groundFlags.BetaMax, "beta-max", numeric.GroundBetaMax, "largest beta*script-J of the ladder")
+	f.Float64Var(&groundFlags.BetaMin, "beta-min", 0, "smallest beta*script-J of the ladder (0 = beta-max/160)")
+	f.IntVar(&groundFlags.Steps, "steps", numeric.GroundSteps, "number of beta values in the ladder (>= 8)")
 	rootCmd.AddCommand(groundCmd)
 }
 
@@ -51,14 +53,16 @@ func runGround(cmd *cobra.Command, args []string) error {
 	case fl.Steps < 8 || fl.Steps > 200:
 		return usageErr("--steps must be between 8 and 200 (got %d)", fl.Steps)
 	}
-	if fl.BetaMin == 0 {
-		fl.BetaMin = fl.BetaMax / 40
+	pr := newProgress(cmd, "ground")
+	lp := numeric.GroundLadder(fl.Q, fl.BetaMax, pr.Update)
+	if fl.BetaMin != 0 {
+		lp.BetaMin = fl.BetaMin
 	}
-	if !(fl.BetaMin > 0) || fl.BetaMin >= fl.BetaMax {
+	if !(lp.BetaMin > 0) || lp.BetaMin >= lp.BetaMax {
 		return usageErr("--beta-min must be positive and below --beta-max (got %g)", fl.BetaMin)
 	}
-	pr := newProgress(cmd, "ground")
-	lad, err := numeric.Ladder(numeric.LadderParams{Q: fl.Q, BetaMin: fl.BetaMin, BetaMax: fl.BetaMax, Steps: fl.Steps, Progress: pr.Update})
+	lp.Steps = fl.Steps
+	lad, err := numeric.Ladder(lp)
 	pr.Done()
 	if errors.Is(err, numeric.ErrInput) {
 		return usageErr("%v", err)
@@ -76,12 +80,15 @@ func runGround(cmd *cobra.Command, args []string) error {
 func groundOutput(g *numeric.Ground) *Output {
 	d := opts.Digits
 	type fitJSON struct {
-		Quantity  string    `json:"quantity"`
 		BetaMin   string    `json:"beta_min"`
 		BetaMax   string    `json:"beta_max"`
 		Exponents []float64 `json:"exponents"`
+		E0        string    `json:"E0"`
+		S0        string    `json:"S0"`
+		AlphaS    string    `json:"alphaS"`
+		AlphaSErr string    `json:"alphaS_err"`
 		Coef      []string  `json:"coef"`
-		RMS       string    `json:"rms"`
+		Chi2      string    `json:"chi2_per_dof"`
 		Accepted  bool      `json:"accepted"`
 	}
 	var fits []fitJSON
@@ -91,16 +98,12 @@ func groundOutput(g *numeric.Ground) *Output {
 		for i, v := range f.Coef {
 			c[i] = fmtFloat(v, 12)
 		}
-		fits = append(fits, fitJSON{f.Quantity, fmtFloat(f.BetaMin, 6), fmtFloat(f.BetaMax, 6), f.Exponents, c, fmtErr64(f.RMS), f.Accepted})
-		exps := make([]string, len(f.Exponents))
-		for i, e := range f.Exponents {
-			exps[i] = fmtFloat(e, 5)
-		}
+		fits = append(fits, fitJSON{fmtFloat(f.BetaMin, 6), fmtFloat(f.BetaMax, 6), f.Exponents, fmtFloat(f.E0, 15), fmtFloat(f.S0, 12), fmtFloat(f.AlphaS, 10), fmtErr64(f.AlphaSErr), c, fmtErr64(f.Chi2), f.Accepted})
 		acc := "no"
 		if f.Accepted {
 			acc = "yes"
 		}
-		fitRows = append(fitRows, []string{f.Quantity, fmtFloat(f.BetaMin, 5) + ".." + fmtFloat(f.BetaMax, 5), strings.Join(exps, " "), fmtFloat(f.Coef[0], 14), fmtErr64(f.RMS), acc})
+		fitRows = append(fitRows, []string{fmtFloat(f.BetaMin, 5) + ".." + fmtFloat(f.BetaMax, 5), strconv.Itoa(len(f.Exponents) - 1), fmtFloat(f.E0, 15), fmtFloat(f.S0, 12), fmtFloat(f.AlphaS, 10), fmtErr64(f.Chi2), acc})
 	}
 	betas := make([]string, len(g.Ladder))
 	for i, s := range g.Ladder {
@@ -130,11 +133,12 @@ func groundOutput(g *numeric.Ground) *Output {
 					{"alpha_S", fmtFloat(g.AlphaS, d), fmtErr64(g.AlphaSErr)},
 				},
 			},
-			{Title: "fits (leading coefficient = E_0 or S_0)", Header: []string{"fit", "beta window", "powers of T", "leading", "rms", "accepted"}, Rows: fitRows},
+			{Title: "joint fits of log Z and E", Header: []string{"beta window", "corrections", "E_0", "S_0", "alpha_S", "chi2/dof", "accepted"}, Rows: fitRows},
 		},
 		Notes: []string{
 			fmt.Sprintf("ladder of %d solves, beta*script-J from %s to %s, each Richardson-extrapolated in the grid spacing", len(g.Ladder), fmtFloat(g.Ladder[0].Beta, 6), fmtFloat(g.Ladder[len(g.Ladder)-1].Beta, 6)),
-			fmt.Sprintf("correction powers from h_1 = %s; value = median of accepted fits, error = half their spread + largest data error", fmtFloat(g.H1, 8)),
+			fmt.Sprintf("log Z = -beta E_0 + S_0 + 2 pi^2 alpha_S T + corrections T^p, p from {2, h_1 - 1, 3, h_1, 4, 2 h_1 - 2, 5, 6}, h_1 = %s", fmtFloat(g.H1, 8)),
+			"value = median of accepted fits, error = half their spread + median statistical error",
 			"S_0 (exact) = (1/2) log 2 - int_0^{1/q} pi (1/2 - x) tan(pi x) dx by Gauss-Legendre quadrature",
 			"units script-J = 1",
 		},
