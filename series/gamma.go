@@ -9,7 +9,8 @@ import (
 )
 
 // ErrPole is returned when a function is evaluated at one of its poles
-// (for Gamma: 0, -1, -2, ...).
+// (for Gamma: 0, -1, -2, ...; for a rational approximant: a zero of its
+// denominator, to within rounding).
 var ErrPole = errors.New("series: argument is a pole")
 
 // errNoConvergence reports an asymptotic series that stopped decreasing

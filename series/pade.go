@@ -7,9 +7,6 @@ import (
 	"sort"
 )
 
-// ErrPole is returned when a rational approximant is evaluated at (or within
-// rounding of) a zero of its denominator.
-var ErrPole = errors.New("series: rational approximant has a pole at the evaluation point")
 
 // Pade is the [L/M] Pade approximant P(t)/Q(t) of a power series f(t):
 // deg P <= L, deg Q <= M, Q(0) = 1 and f Q - P = O(t^(L+M+1)).
