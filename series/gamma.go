@@ -324,7 +324,7 @@ func gammaPositive(x *big.Float, wp uint) (*big.Float, error) {
 		if err != nil {
 			return nil, err
 		}
-		v := specialExp(lg, wp)
+		v := BigExp(lg, wp)
 		if n > 0 {
 			v.Quo(v, risingProduct(x, n, wp))
 		}
@@ -587,42 +587,4 @@ func cotDerivatives(c *big.Float, mmax int, wp uint) []*big.Float {
 		pipow.Mul(pipow, pi)
 	}
 	return out
-}
-
-// specialExp returns e^x at prec bits for |x| < 2^40: x = n log 2 + r, r
-// halved h times, Taylor series, then h squarings. It replaces the
-// Newton-on-log exponential where many exponentials are needed (the powers
-// of the Hurwitz zeta sum, Gamma = exp(log Gamma)).
-func specialExp(x *big.Float, prec uint) *big.Float {
-	if x.Sign() == 0 {
-		return new(big.Float).SetPrec(prec).SetInt64(1)
-	}
-	ex := max(x.MantExp(nil), 0)
-	if ex > 40 {
-		return BigExp(x, prec) // over- or underflows anyway
-	}
-	const h = 12
-	p := prec + uint(ex) + 2*h + 16
-	ln2 := Ln2(p)
-	q := new(big.Float).SetPrec(p).Quo(x, ln2)
-	n, _ := q.Int(nil)
-	r := new(big.Float).SetPrec(p).Mul(ln2, new(big.Float).SetInt(n))
-	r.Sub(x, r)
-	r.SetMantExp(r, -h)
-	// Taylor series of e^r, |r| < 2^-h
-	sum := new(big.Float).SetPrec(p).SetInt64(1)
-	term := new(big.Float).SetPrec(p).SetInt64(1)
-	for k := int64(1); ; k++ {
-		term.Mul(term, r)
-		term.Quo(term, new(big.Float).SetInt64(k))
-		sum.Add(sum, term)
-		if term.Sign() == 0 || term.MantExp(nil) < -int(p) {
-			break
-		}
-	}
-	for i := 0; i < h; i++ {
-		sum.Mul(sum, sum)
-	}
-	sum.SetMantExp(sum, int(n.Int64()))
-	return sum.SetPrec(prec)
 }

@@ -367,14 +367,3 @@ for x in sys.argv[1:]:
 	}
 }
 
-func TestSpecialExpMatchesBigExp(t *testing.T) {
-	// specialExp against the package's BigExp (bigfloat, Newton on log).
-	for _, xs := range []string{"1e-30", "0.5", "-3.25", "123.456", "-700.1", "5e6"} {
-		for _, p := range []uint{53, 333, 1000} {
-			x := parseBig(t, xs, p)
-			if !closeTo(specialExp(x, p), BigExp(x, p+10), int(p)-1) {
-				t.Errorf("specialExp(%s) at %d bits disagrees with BigExp", xs, p)
-			}
-		}
-	}
-}

@@ -7,7 +7,6 @@ import (
 	"sort"
 )
 
-
 // Pade is the [L/M] Pade approximant P(t)/Q(t) of a power series f(t):
 // deg P <= L, deg Q <= M, Q(0) = 1 and f Q - P = O(t^(L+M+1)).
 //

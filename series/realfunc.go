@@ -4,8 +4,6 @@ import (
 	"errors"
 	"math/big"
 	"sync"
-
-	"github.com/ALTree/bigfloat"
 )
 
 // guard is the number of extra bits carried inside the elementary functions
@@ -59,37 +57,131 @@ func atanInv(m int64, prec uint) *big.Float {
 	return sum
 }
 
-// Ln2 returns log 2 rounded to prec bits.
+var ln2Cache = struct {
+	sync.Mutex
+	prec uint
+	v    *big.Float
+}{}
+
+// Ln2 returns log 2 rounded to prec bits (log 2 = 2 atanh(1/3), cached at
+// the highest precision asked for so far).
 func Ln2(prec uint) *big.Float {
-	return bigfloat.Log(new(big.Float).SetPrec(prec + guard).SetInt64(2)).SetPrec(prec)
+	ln2Cache.Lock()
+	defer ln2Cache.Unlock()
+	if ln2Cache.v == nil || ln2Cache.prec < prec {
+		p := prec + guard
+		third := new(big.Float).SetPrec(p).Quo(big.NewFloat(1), big.NewFloat(3))
+		v := atanhSeries(third, p)
+		ln2Cache.v, ln2Cache.prec = v.SetMantExp(v, 1), prec
+	}
+	return new(big.Float).SetPrec(prec).Set(ln2Cache.v)
 }
 
-// BigExp returns e^x at prec bits.
+// atanhSeries returns atanh z = z + z^3/3 + z^5/5 + ... for small |z|.
+func atanhSeries(z *big.Float, prec uint) *big.Float {
+	z2 := new(big.Float).SetPrec(prec).Mul(z, z)
+	sum := new(big.Float).SetPrec(prec).Set(z)
+	pw := new(big.Float).SetPrec(prec).Set(z)
+	t := new(big.Float).SetPrec(prec)
+	for k := int64(1); ; k++ {
+		pw.Mul(pw, z2)
+		t.Quo(pw, new(big.Float).SetInt64(2*k+1))
+		sum.Add(sum, t)
+		if t.Sign() == 0 || t.MantExp(nil) < sum.MantExp(nil)-int(prec)-2 {
+			return sum
+		}
+	}
+}
+
+// BigExp returns e^x at prec bits: x = n log 2 + r, e^r from its Taylor
+// series at r/2^h, squared h times.
 func BigExp(x *big.Float, prec uint) *big.Float {
-	y := new(big.Float).SetPrec(prec + guard).Set(x)
-	return bigfloat.Exp(y).SetPrec(prec)
+	if x.Sign() == 0 {
+		return new(big.Float).SetPrec(prec).SetInt64(1)
+	}
+	ex := max(x.MantExp(nil), 0)
+	if ex > 62 {
+		// |x| > 2^62: e^x is outside big.Float's exponent range.
+		if x.Sign() > 0 {
+			return new(big.Float).SetPrec(prec).SetInf(false)
+		}
+		return new(big.Float).SetPrec(prec)
+	}
+	const h = 12
+	p := prec + uint(ex) + 2*h + guard
+	ln2 := Ln2(p)
+	q := new(big.Float).SetPrec(p).Quo(x, ln2)
+	n, _ := q.Int(nil)
+	r := new(big.Float).SetPrec(p).Mul(ln2, new(big.Float).SetInt(n))
+	r.Sub(x, r)
+	r.SetMantExp(r, -h)
+	sum := new(big.Float).SetPrec(p).SetInt64(1)
+	term := new(big.Float).SetPrec(p).SetInt64(1)
+	for k := int64(1); ; k++ {
+		term.Mul(term, r)
+		term.Quo(term, new(big.Float).SetInt64(k))
+		sum.Add(sum, term)
+		if term.Sign() == 0 || term.MantExp(nil) < -int(p) {
+			break
+		}
+	}
+	for i := 0; i < h; i++ {
+		sum.Mul(sum, sum)
+	}
+	sum.SetMantExp(sum, int(n.Int64()))
+	return sum.SetPrec(prec)
 }
 
 // ErrDomain is returned when a function is asked for a value outside its domain.
 var ErrDomain = errors.New("series: argument outside the function's domain")
 
-// BigLog returns log x at prec bits; x must be positive.
+// BigLog returns log x at prec bits; x must be positive. With x = m 2^e,
+// m in [1/2, 1), log x = e log 2 + 2^(k+1) atanh((r-1)/(r+1)) where
+// r = m^(1/2^k) is brought close to 1 by k square roots.
 func BigLog(x *big.Float, prec uint) (*big.Float, error) {
 	if x.Sign() <= 0 || x.IsInf() {
 		return nil, ErrDomain
 	}
-	y := new(big.Float).SetPrec(prec + guard).Set(x)
-	return bigfloat.Log(y).SetPrec(prec), nil
+	k := 4
+	for k*k < int(prec)/2 {
+		k++
+	}
+	p := prec + guard + uint(k)
+	m := new(big.Float).SetPrec(p)
+	e := 0
+	if x.Cmp(big.NewFloat(0.5)) >= 0 && x.Cmp(big.NewFloat(2)) < 0 {
+		m.Set(x) // near 1: no exponent split, so log x keeps its relative accuracy
+	} else {
+		e = x.MantExp(m)
+		m.SetPrec(p) // MantExp gives m the precision of x
+	}
+	for i := 0; i < k; i++ {
+		m.Sqrt(m)
+	}
+	num := new(big.Float).SetPrec(p).Sub(m, big.NewFloat(1))
+	den := new(big.Float).SetPrec(p).Add(m, big.NewFloat(1))
+	z := num.Quo(num, den)
+	l := atanhSeries(z, p)
+	l.SetMantExp(l, k+1)
+	if e != 0 {
+		t := Ln2(p)
+		t.Mul(t, new(big.Float).SetInt64(int64(e)))
+		l.Add(l, t)
+	}
+	return l.SetPrec(prec), nil
 }
 
-// BigPow returns x^y at prec bits for x > 0.
+// BigPow returns x^y at prec bits for x > 0, as exp(y log x).
 func BigPow(x, y *big.Float, prec uint) (*big.Float, error) {
 	if x.Sign() <= 0 || x.IsInf() {
 		return nil, ErrDomain
 	}
-	a := new(big.Float).SetPrec(prec + guard).Set(x)
-	b := new(big.Float).SetPrec(prec + guard).Set(y)
-	return bigfloat.Pow(a, b).SetPrec(prec), nil
+	ex := max(y.MantExp(nil), 0) + 8
+	lx, err := BigLog(x, prec+guard+uint(ex))
+	if err != nil {
+		return nil, err
+	}
+	return BigExp(lx.Mul(lx, y), prec), nil
 }
 
 // BigSinCos returns sin x and cos x at prec bits. The argument is reduced

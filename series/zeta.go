@@ -42,7 +42,7 @@ func hurwitzPower(v, s *big.Float, sInt int64, isInt bool, wp uint) (*big.Float,
 	}
 	lv.Mul(lv, s)
 	lv.Neg(lv)
-	return specialExp(lv, wp), nil
+	return BigExp(lv, wp), nil
 }
 
 // hurwitzEulerMaclaurin returns zeta(s, a) for a > 0, s != 1, and the

@@ -183,3 +183,12 @@ func fmtErr(x *big.Float) string {
 	}
 	return new(big.Float).Abs(x).Text('e', 1)
 }
+
+// fmtValue formats a computed value; one no larger than its own error
+// estimate is printed as 0 (it is zero to the accuracy known).
+func fmtValue(x, err *big.Float, digits int) string {
+	if err != nil && new(big.Float).Abs(x).Cmp(err) <= 0 {
+		return "0"
+	}
+	return fmtBig(x, digits)
+}

@@ -1,0 +1,181 @@
+package expansion
+
+import (
+	"errors"
+	"fmt"
+	"math/big"
+
+	"qbridge/series"
+)
+
+// dimensionSeries returns the coefficients h_n,0..h_n,order at prec bits.
+func dimensionSeries(end End, n, order int, prec uint) ([]*big.Float, error) {
+	length := order + 3 // two spare terms: pole cancellation divides by s
+	s, err := series.Variable(length, prec, nil)
+	if err != nil {
+		return nil, err
+	}
+	f := formAt(end, n, s)
+	eq, err := kernelEquation(f, prec)
+	if err != nil {
+		return nil, err
+	}
+	coarse, err := coarseEquation(end, n, nil)
+	if err != nil {
+		return nil, err
+	}
+	y0, err := eq.scalarRoot(f.samples, coarse)
+	if err != nil {
+		return nil, fmt.Errorf("h_%d at the %s end: %w", n, end, err)
+	}
+	if eq.signAt(y0) < 0 {
+		return nil, fmt.Errorf("h_%d at the %s end: k_A = -1 rather than +1 at the root: no dimension there", n, end)
+	}
+	y, _, err := eq.seriesRoot(y0, length-1)
+	if err != nil {
+		return nil, fmt.Errorf("h_%d at the %s end: %w", n, end, err)
+	}
+	h := series.AddConst(series.Mul(f.scale, y), f.base)
+	if h.Len() < order+1 {
+		return nil, errors.New("expansion: internal error: dimension series came out short")
+	}
+	return h.Coeffs()[:order+1], nil
+}
+
+// DimensionSeries returns the Taylor coefficients of the operator dimension
+// h_n to the given order around one end: in eps = 1 - 2/q around q = 2, in
+// x = 1/q around q = infinity. The kernel equation k_A(h) = 1 is rewritten
+// so that the colliding pole and zero cancel analytically and is solved for
+// the whole series by Newton's iteration on series. Digits sets the working
+// precision; each coefficient's error is the difference between runs at two
+// precisions.
+func DimensionSeries(end End, n, order, digits int) (*Coefficients, error) {
+	if err := checkN(n); err != nil {
+		return nil, err
+	}
+	if err := checkOrder(order); err != nil {
+		return nil, err
+	}
+	if err := checkDigits(digits); err != nil {
+		return nil, err
+	}
+	p1 := bitsFor(digits, order)
+	p2 := secondPrec(p1)
+	lo, err := dimensionSeries(end, n, order, p1)
+	if err != nil {
+		return nil, err
+	}
+	hi, err := dimensionSeries(end, n, order, p2)
+	if err != nil {
+		return nil, err
+	}
+	vals, errs := pairErrors(lo, hi, p1)
+	c := &Coefficients{
+		Quantity: fmt.Sprintf("h_%d", n),
+		End:      end,
+		N:        n,
+		Values:   vals,
+		Errors:   errs,
+		Method: fmt.Sprintf("Newton iteration on series for k_A(h) = 1 with the colliding pole and zero cancelled; errors from runs at %d and %d bits",
+			p1, p2),
+		Prec: p2,
+	}
+	c.estimateRadius()
+	return c, nil
+}
+
+// coarsePrec is the precision of the sign scan and bisection that bracket
+// a root before Newton's method polishes it.
+const coarsePrec = 96
+
+// coarseEquation returns the kernel equation at coarsePrec bits, at the
+// expansion point (s0 == nil) or at the fixed value s0.
+func coarseEquation(end End, n int, s0 *big.Float) (*logEquation, error) {
+	var s *series.Series
+	var err error
+	if s0 == nil {
+		s, err = series.Variable(3, coarsePrec, nil)
+	} else {
+		s, err = series.FromBig(coarsePrec, []*big.Float{s0})
+	}
+	if err != nil {
+		return nil, err
+	}
+	return kernelEquation(formAt(end, n, s), coarsePrec)
+}
+
+// dimensionExact returns h_n(q) at prec bits.
+func dimensionExact(q QPoint, n int, prec uint) (*big.Float, error) {
+	var s *series.Series
+	var end End
+	var err error
+	switch {
+	case q.Inf:
+		end = AroundInf
+		s, err = series.Variable(3, prec, nil)
+	case q.IsTwo():
+		end = AroundTwo
+		s, err = series.Variable(3, prec, nil)
+	default:
+		end = AroundTwo
+		s, err = series.FromBig(prec, []*big.Float{q.Eps(prec)})
+	}
+	if err != nil {
+		return nil, err
+	}
+	f := formAt(end, n, s)
+	eq, err := kernelEquation(f, prec)
+	if err != nil {
+		return nil, err
+	}
+	var s0 *big.Float
+	if s.Len() == 1 {
+		s0 = s.Coeff(0)
+	}
+	coarse, err := coarseEquation(end, n, s0)
+	if err != nil {
+		return nil, err
+	}
+	y, err := eq.scalarRoot(f.samples, coarse)
+	if err != nil {
+		return nil, fmt.Errorf("h_%d at q = %s: %w", n, q, err)
+	}
+	if eq.signAt(y) < 0 {
+		return nil, fmt.Errorf("h_%d at q = %s: k_A = -1 rather than +1 at the root", n, q)
+	}
+	h := new(big.Float).SetPrec(prec).Mul(f.scale.Coeff(0), y)
+	return h.Add(h, f.base), nil
+}
+
+// Dimension returns h_n(q), the n-th solution of k_A(h) = 1 (n = 0 is the
+// soft mode h = 2), found by bracketing between the pole and the zero of
+// k_A and polishing by Newton's method at full precision. q = 2 and
+// q = infinity are the limits. The error is the difference between runs at
+// two precisions.
+func Dimension(q QPoint, n, digits int) (*Value, error) {
+	if err := checkN(n); err != nil {
+		return nil, err
+	}
+	if err := checkDigits(digits); err != nil {
+		return nil, err
+	}
+	p1 := bitsFor(digits, 0)
+	p2 := secondPrec(p1)
+	lo, err := dimensionExact(q, n, p1)
+	if err != nil {
+		return nil, err
+	}
+	hi, err := dimensionExact(q, n, p2)
+	if err != nil {
+		return nil, err
+	}
+	vals, errs := pairErrors([]*big.Float{lo}, []*big.Float{hi}, p1)
+	return &Value{
+		Quantity: fmt.Sprintf("h_%d", n),
+		Q:        q,
+		N:        n,
+		Value:    vals[0],
+		Err:      errs[0],
+		Method:   fmt.Sprintf("bisection between the pole and zero of k_A, Newton polish; errors from %d and %d bits", p1, p2),
+	}, nil
+}

@@ -1,0 +1,61 @@
+package expansion
+
+import (
+	"fmt"
+	"math/big"
+	"strings"
+)
+
+// QPoint is a value of the interaction order q: a real number >= 2 or
+// infinity.
+type QPoint struct {
+	Inf bool
+	Q   *big.Float // nil when Inf
+}
+
+// ParseQ reads q from text ("4", "2.5", "1e3", "inf") at prec bits and
+// checks that it lies in the supported range [2, infinity].
+func ParseQ(text string, prec uint) (QPoint, error) {
+	t := strings.TrimSpace(strings.ToLower(text))
+	switch t {
+	case "inf", "infinity", "+inf":
+		return QPoint{Inf: true}, nil
+	}
+	q, _, err := big.ParseFloat(t, 10, prec, big.ToNearestEven)
+	if err != nil || q.IsInf() {
+		return QPoint{}, fmt.Errorf("cannot read q = %q as a number (use a decimal such as 4 or 2.5, or inf)", text)
+	}
+	if q.Cmp(big.NewFloat(2)) < 0 {
+		return QPoint{}, fmt.Errorf("q = %s is below 2: supported is 2 <= q <= inf (q = 2 is free random hopping)", text)
+	}
+	return QPoint{Q: q}, nil
+}
+
+// IsTwo reports q = 2 exactly.
+func (p QPoint) IsTwo() bool { return !p.Inf && p.Q.Cmp(big.NewFloat(2)) == 0 }
+
+// String prints q.
+func (p QPoint) String() string {
+	if p.Inf {
+		return "inf"
+	}
+	return p.Q.Text('g', 20)
+}
+
+// Eps returns eps = 1 - 2/q at prec bits (1 at q = infinity).
+func (p QPoint) Eps(prec uint) *big.Float {
+	one := bigInt(1, prec)
+	if p.Inf {
+		return one
+	}
+	e := new(big.Float).SetPrec(prec).Quo(bigInt(2, prec), p.Q)
+	return e.Sub(one, e)
+}
+
+// X returns x = 1/q at prec bits (0 at q = infinity).
+func (p QPoint) X(prec uint) *big.Float {
+	if p.Inf {
+		return new(big.Float).SetPrec(prec)
+	}
+	return new(big.Float).SetPrec(prec).Quo(bigInt(1, prec), p.Q)
+}
