@@ -366,4 +366,3 @@ for x in sys.argv[1:]:
 		checkClose(t, "zeta(3.5, |x|+0.1) at x = "+f[0], z, f[5], bits)
 	}
 }
-
