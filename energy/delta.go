@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"math/big"
 
 	"qbridge/series"
 )
@@ -51,6 +50,12 @@ type DeltaParams struct {
 	// Levels is the number of grids Points, Points/2, ... used in the
 	// Richardson extrapolation in the grid spacing; 0 means 3.
 	Levels int
+	// Variable is VarDelta (the default when empty) or VarEps: with VarEps
+	// every grid's series is converted to eps = 1 - 2/q by the exact
+	// substitution delta = 2 eps/(1 - eps) (series.DeltaToEps) before the
+	// Richardson extrapolation, so the error bars are those of the
+	// eps-coefficients themselves.
+	Variable string
 }
 
 // Limits of DeltaParams.
@@ -88,6 +93,8 @@ func (p *DeltaParams) validate() error {
 		return fmt.Errorf("%w: order %d is above the maximum %d of the q = 2 expansion (cost and memory grow like order x points)", ErrOrder, p.Order, MaxDeltaOrder)
 	case p.Levels < 0 || p.Levels > 5:
 		return fmt.Errorf("%w: levels must be between 1 and 5, got %d", ErrInput, p.Levels)
+	case p.Variable != "" && p.Variable != VarDelta && p.Variable != VarEps:
+		return fmt.Errorf("%w: the q = 2 expansion variable is %q or %q, got %q", ErrInput, VarDelta, VarEps, p.Variable)
 	}
 	if p.Points != 0 && (p.Points < MinGridPoints || p.Points > MaxGridPoints || p.Points&(p.Points-1) != 0) {
 		return fmt.Errorf("%w: points must be a power of two between %d and %d, got %d", ErrInput, MinGridPoints, MaxGridPoints, p.Points)
@@ -115,16 +122,27 @@ func DeltaExpand(p DeltaParams) (*FiniteBeta, error) {
 	if p.Points>>(p.Levels-1) < MinGridPoints/2 {
 		return nil, fmt.Errorf("%w: %d points leave too few on the coarsest of %d grids", ErrInput, p.Points, p.Levels)
 	}
+	if p.Variable == "" {
+		p.Variable = VarDelta
+	}
 	levels := make([]*deltaLevel, p.Levels)
 	for l := range levels {
 		lv, err := solveDeltaLevel(p.Beta, p.Points>>(l+1), p.Order)
 		if err != nil {
 			return nil, err
 		}
+		if p.Variable == VarEps {
+			if lv.logZ, err = substitute(lv.logZ, series.DeltaToEps); err != nil {
+				return nil, err
+			}
+			if lv.e, err = substitute(lv.e, series.DeltaToEps); err != nil {
+				return nil, err
+			}
+		}
 		levels[l] = lv
 	}
 	n := p.Order + 1
-	out := &FiniteBeta{Beta: p.Beta, Variable: VarDelta, Points: p.Points, Levels: p.Levels}
+	out := &FiniteBeta{Beta: p.Beta, Variable: p.Variable, Points: p.Points, Levels: p.Levels}
 	out.LogZ = extrapolate(levels, n, func(l *deltaLevel) []float64 { return l.logZ })
 	out.E = extrapolate(levels, n, func(l *deltaLevel) []float64 { return l.e })
 	if err := checkResolved(out.E, p.Order, p.Beta/float64(p.Points)); err != nil {
@@ -157,39 +175,6 @@ func extrapolate(levels []*deltaLevel, n int, f func(*deltaLevel) []float64) Coe
 	return c
 }
 
-// ToEps converts a series in delta = q - 2 to eps = 1 - 2/q by the exact
-// substitution delta = 2 eps/(1 - eps) (series.DeltaToEps). Every power of
-// delta has non-negative coefficients in eps, so the error bars map through
-// the same substitution.
-func (f *FiniteBeta) ToEps() (*FiniteBeta, error) {
-	if f.Variable != VarDelta {
-		return nil, fmt.Errorf("energy: ToEps needs a series in delta, have %s", f.Variable)
-	}
-	g := *f
-	g.Variable = VarEps
-	var err error
-	if g.LogZ, err = deltaToEps(f.LogZ); err != nil {
-		return nil, err
-	}
-	if g.E, err = deltaToEps(f.E); err != nil {
-		return nil, err
-	}
-	return &g, nil
-}
-
-// deltaToEps converts coefficients and error bars from delta to eps.
-func deltaToEps(c Coeffs) (Coeffs, error) {
-	v, err := substitute(c.Values, series.DeltaToEps)
-	if err != nil {
-		return Coeffs{}, err
-	}
-	e, err := substitute(c.Errors, series.DeltaToEps)
-	if err != nil {
-		return Coeffs{}, err
-	}
-	return Coeffs{Values: v, Errors: e}, nil
-}
-
 // substitutePrec is the precision of the change of variables; the inputs
 // are float64, the substitution adds exact binomial sums.
 const substitutePrec = 128
@@ -210,11 +195,3 @@ func substitute(c []float64, f func(*series.Series) (*series.Series, error)) ([]
 	return out, nil
 }
 
-// bigs converts float64 values to big.Float at prec bits.
-func bigs(v []float64, prec uint) []*big.Float {
-	out := make([]*big.Float, len(v))
-	for i, x := range v {
-		out[i] = new(big.Float).SetPrec(prec).SetFloat64(x)
-	}
-	return out
-}
