@@ -194,4 +194,3 @@ func substitute(c []float64, f func(*series.Series) (*series.Series, error)) ([]
 	}
 	return out, nil
 }
-

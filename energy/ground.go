@@ -194,4 +194,3 @@ func groundFromLadder(ladder []*FiniteBeta, corr func(k int) []corrTerm) (*Groun
 	}
 	return g, nil
 }
-

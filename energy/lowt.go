@@ -44,7 +44,7 @@ type lowTFit struct {
 	// errors (covariance of the weighted fit, scaled up by RMS when > 1).
 	E0Sd, S0Sd, AlphaSSd float64
 	RMS                  float64 // weighted root-mean-square residual
-	Accepted         bool
+	Accepted             bool
 }
 
 // fitLowT fits E = E_0 + 2 pi^2 alpha/beta^2 + sum a_t E_t(beta) and
