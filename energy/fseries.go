@@ -80,3 +80,29 @@ func at(a []float64, k int) float64 {
 	}
 	return 0
 }
+
+// fsLogInto writes log(a) to dst (len(dst) terms) without allocating.
+func fsLogInto(dst, a []float64) {
+	n := len(dst)
+	dst[0] = math.Log(a[0])
+	for k := 1; k < n; k++ {
+		s := float64(k) * at(a, k)
+		for j := 1; j < k; j++ {
+			s -= float64(j) * dst[j] * at(a, k-j)
+		}
+		dst[k] = s / (float64(k) * a[0])
+	}
+}
+
+// fsExpInto writes exp(a) to dst (len(dst) terms) without allocating.
+func fsExpInto(dst, a []float64) {
+	n := len(dst)
+	dst[0] = math.Exp(a[0])
+	for k := 1; k < n; k++ {
+		s := 0.0
+		for j := 1; j <= k; j++ {
+			s += float64(j) * at(a, j) * dst[k-j]
+		}
+		dst[k] = s / float64(k)
+	}
+}

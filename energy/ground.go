@@ -157,6 +157,12 @@ func groundAroundTwo(p GroundParams, eps bool) (*GroundSeries, error) {
 
 // groundFromLadder fits every order of the ladder's series.
 func groundFromLadder(ladder []*FiniteBeta, corr func(k int) []corrTerm) (*GroundSeries, error) {
+	return groundFromLadderFrom(ladder, corr, 0)
+}
+
+// groundFromLadderFrom fits the orders from first on; lower orders are left
+// zero with zero error (they are exact and set by the caller).
+func groundFromLadderFrom(ladder []*FiniteBeta, corr func(k int) []corrTerm, first int) (*GroundSeries, error) {
 	n := ladder[0].E.Len()
 	g := &GroundSeries{Ladder: ladder, BetaMin: ladder[0].Beta, BetaMax: ladder[len(ladder)-1].Beta}
 	for _, c := range []*Coeffs{&g.E0, &g.S0, &g.AlphaS} {
@@ -166,7 +172,11 @@ func groundFromLadder(ladder []*FiniteBeta, corr func(k int) []corrTerm) (*Groun
 	m := len(ladder)
 	beta := make([]float64, m)
 	e, ee, s, se := make([]float64, m), make([]float64, m), make([]float64, m), make([]float64, m)
-	for k := 0; k < n; k++ {
+	for k := 0; k < first; k++ {
+		g.FitsPerOrder = append(g.FitsPerOrder, 0)
+		g.TotalFitsPerOrder = append(g.TotalFitsPerOrder, 0)
+	}
+	for k := first; k < n; k++ {
 		for i, f := range ladder {
 			b := f.Beta
 			beta[i] = b
@@ -191,6 +201,78 @@ func groundFromLadder(ladder []*FiniteBeta, corr func(k int) []corrTerm) (*Groun
 		}
 		g.FitsPerOrder = append(g.FitsPerOrder, acc)
 		g.TotalFitsPerOrder = append(g.TotalFitsPerOrder, len(est.Fits))
+	}
+	return g, nil
+}
+
+// Defaults of the q = infinity ladder.
+const (
+	DefaultInvQBetaMin = 100
+	DefaultInvQBetaMax = 6400
+	DefaultInvQSteps   = 13
+	// invQPointsPerBeta: the higher orders of the 1/q expansion need a finer
+	// grid than the q = 2 expansion for the same accuracy.
+	invQPointsPerBeta = 64
+)
+
+// invQCorrections lists the corrections to log Z at every order of the 1/q
+// expansion: powers beta^{-2} ... beta^{-8}. At large q the operator
+// dimensions tend to odd integers, h_n -> 2n + 1, so the non-Schwarzian
+// corrections are integer powers at leading order; the fitted S_0 at every
+// order reproducing the exact series is the check that no log(beta) terms
+// are missed at the orders computed.
+func invQCorrections(int) []corrTerm {
+	var t []corrTerm
+	for p := 2.0; p <= 8; p++ {
+		t = append(t, corrTerm{p, 0})
+	}
+	return t
+}
+
+// InvQGround expands log Z and E in x = 1/q on a ladder of temperatures
+// (InvQExpand) and fits every order k >= 2 like DeltaGround. The
+// coefficients of x^0 and x^1 are exact: E_0 = 0, 0; S_0 = (1/2) log 2, 0;
+// alpha_S = 0, 0.
+func InvQGround(p GroundParams) (*GroundSeries, error) {
+	if err := p.fill(DefaultInvQBetaMin, DefaultInvQBetaMax, DefaultInvQSteps); err != nil {
+		return nil, err
+	}
+	if p.Order < 2 || p.Order > MaxInvQOrder {
+		return nil, fmt.Errorf("%w: the 1/q expansion takes orders 2..%d, got %d", ErrOrder, MaxInvQOrder, p.Order)
+	}
+	betas := p.betas()
+	var work, done float64
+	for _, b := range betas {
+		work += b
+	}
+	ladder := make([]*FiniteBeta, len(betas))
+	for i, b := range betas {
+		if p.Progress != nil {
+			p.Progress(done/work, fmt.Sprintf("beta %.4g (%d/%d)", b, i+1, len(betas)))
+		}
+		n := 256
+		for float64(n) < invQPointsPerBeta*b && n < MaxGridPoints {
+			n *= 2
+		}
+		f, err := InvQExpand(InvQParams{Beta: b, Order: p.Order, Points: n})
+		if err != nil {
+			return nil, fmt.Errorf("ladder step beta=%g: %w", b, err)
+		}
+		ladder[i] = f
+		done += b
+	}
+	if p.Progress != nil {
+		p.Progress(1, "fits")
+	}
+	g, err := groundFromLadderFrom(ladder, invQCorrections, 2)
+	if err != nil {
+		return nil, err
+	}
+	g.Variable = VarX
+	g.S0.Values[0] = 0.5 * math.Ln2
+	g.S0Exact, err = floats(ExactS0InvQ(p.Order, 128))
+	if err != nil {
+		return nil, err
 	}
 	return g, nil
 }
