@@ -1,0 +1,196 @@
+package energy
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"qbridge/series"
+)
+
+// ErrInput marks errors caused by invalid parameters (bad order, beta, grid).
+var ErrInput = errors.New("invalid input")
+
+// ErrOrder marks an order the grid or the arithmetic cannot support.
+var ErrOrder = errors.New("order not supported")
+
+// Coeffs is a truncated power series with an error bar on every coefficient:
+// Values[k] is the coefficient of t^k and Errors[k] its uncertainty.
+type Coeffs struct {
+	Values, Errors []float64
+}
+
+// Len is the number of coefficients.
+func (c Coeffs) Len() int { return len(c.Values) }
+
+// Variables of the expansions.
+const (
+	VarDelta = "delta" // q - 2
+	VarEps   = "eps"   // 1 - 2/q
+	VarX     = "x"     // 1/q
+)
+
+// FiniteBeta holds log Z and E at one inverse temperature as series in
+// Variable, extrapolated to zero grid spacing.
+type FiniteBeta struct {
+	Beta     float64
+	Variable string
+	LogZ, E  Coeffs
+	Points   int // grid points on [0, beta) of the finest grid
+	Levels   int // grids used in the Richardson extrapolation
+}
+
+// DeltaParams selects an expansion around q = 2 at fixed beta.
+type DeltaParams struct {
+	Beta  float64 // inverse temperature beta*script-J, > 0
+	Order int     // highest power of delta, 0..MaxDeltaOrder
+	// Points is the number of grid points on [0, beta) of the finest grid,
+	// a power of two; 0 means DefaultDeltaPoints(Beta).
+	Points int
+	// Levels is the number of grids Points, Points/2, ... used in the
+	// Richardson extrapolation in the grid spacing; 0 means 3.
+	Levels int
+	// Variable is VarDelta (the default when empty) or VarEps: with VarEps
+	// every grid's series is converted to eps = 1 - 2/q by the exact
+	// substitution delta = 2 eps/(1 - eps) (series.DeltaToEps) before the
+	// Richardson extrapolation, so the error bars are those of the
+	// eps-coefficients themselves.
+	Variable string
+}
+
+// Limits of DeltaParams.
+const (
+	// MaxDeltaOrder is the highest order accepted. The per-point float64
+	// series stay accurate well beyond it; the bound keeps the per-order
+	// cost and memory (order x points) modest.
+	MaxDeltaOrder = 40
+	MinGridPoints = 64
+	MaxGridPoints = 1 << 24
+)
+
+// DefaultDeltaPoints returns the smallest power of two with at least 32
+// points per unit of beta*script-J, and at least 256.
+func DefaultDeltaPoints(beta float64) int {
+	n := 256
+	for float64(n) < 32*beta && n < MaxGridPoints {
+		n *= 2
+	}
+	return n
+}
+
+// deltaRichardsonPowers: the discretisation error is O(h^4) (model
+// functions carry the jumps, end-corrected trapezoid), then h^5 from the
+// truncated Matsubara sum and h^6.
+var deltaRichardsonPowers = []float64{4, 5, 6}
+
+func (p *DeltaParams) validate() error {
+	switch {
+	case math.IsNaN(p.Beta) || p.Beta <= 0 || math.IsInf(p.Beta, 0):
+		return fmt.Errorf("%w: beta must be positive and finite, got %g", ErrInput, p.Beta)
+	case p.Order < 0:
+		return fmt.Errorf("%w: order must be >= 0, got %d", ErrInput, p.Order)
+	case p.Order > MaxDeltaOrder:
+		return fmt.Errorf("%w: order %d is above the maximum %d of the q = 2 expansion (cost and memory grow like order x points)", ErrOrder, p.Order, MaxDeltaOrder)
+	case p.Levels < 0 || p.Levels > 5:
+		return fmt.Errorf("%w: levels must be between 1 and 5, got %d", ErrInput, p.Levels)
+	case p.Variable != "" && p.Variable != VarDelta && p.Variable != VarEps:
+		return fmt.Errorf("%w: the q = 2 expansion variable is %q or %q, got %q", ErrInput, VarDelta, VarEps, p.Variable)
+	}
+	if p.Points != 0 && (p.Points < MinGridPoints || p.Points > MaxGridPoints || p.Points&(p.Points-1) != 0) {
+		return fmt.Errorf("%w: points must be a power of two between %d and %d, got %d", ErrInput, MinGridPoints, MaxGridPoints, p.Points)
+	}
+	return nil
+}
+
+// DeltaExpand returns log Z and E at p.Beta as series in delta = q - 2 up to
+// delta^Order, each coefficient extrapolated to zero grid spacing with an
+// error bar (the last Richardson correction plus a round-off floor).
+//
+// It refuses (ErrOrder) an order whose top coefficient the grid cannot
+// resolve: when the error bar of the highest coefficient of E exceeds its
+// size, the message names the grid spacing as the limit.
+func DeltaExpand(p DeltaParams) (*FiniteBeta, error) {
+	if err := p.validate(); err != nil {
+		return nil, err
+	}
+	if p.Points == 0 {
+		p.Points = DefaultDeltaPoints(p.Beta)
+	}
+	if p.Levels == 0 {
+		p.Levels = 3
+	}
+	if p.Points>>(p.Levels-1) < MinGridPoints/2 {
+		return nil, fmt.Errorf("%w: %d points leave too few on the coarsest of %d grids", ErrInput, p.Points, p.Levels)
+	}
+	if p.Variable == "" {
+		p.Variable = VarDelta
+	}
+	levels := make([]*deltaLevel, p.Levels)
+	for l := range levels {
+		lv, err := solveDeltaLevel(p.Beta, p.Points>>(l+1), p.Order)
+		if err != nil {
+			return nil, err
+		}
+		if p.Variable == VarEps {
+			if lv.logZ, err = substitute(lv.logZ, series.DeltaToEps); err != nil {
+				return nil, err
+			}
+			if lv.e, err = substitute(lv.e, series.DeltaToEps); err != nil {
+				return nil, err
+			}
+		}
+		levels[l] = lv
+	}
+	n := p.Order + 1
+	out := &FiniteBeta{Beta: p.Beta, Variable: p.Variable, Points: p.Points, Levels: p.Levels}
+	out.LogZ = extrapolate(levels, n, func(l *deltaLevel) []float64 { return l.logZ })
+	out.E = extrapolate(levels, n, func(l *deltaLevel) []float64 { return l.e })
+	if err := checkResolved(out.E, p.Order, p.Beta/float64(p.Points)); err != nil {
+		return nil, err
+	}
+	return out, nil
+}
+
+// checkResolved refuses a series whose top coefficient is lost in its error bar.
+func checkResolved(c Coeffs, order int, h float64) error {
+	if order == 0 {
+		return nil
+	}
+	v, e := c.Values[order], c.Errors[order]
+	if e > math.Abs(v) {
+		return fmt.Errorf("%w: the coefficient of order %d is %.3g ± %.2g, not resolved on a grid of spacing %.3g: the grid limits the order; use more points or a lower order", ErrOrder, order, v, e, h)
+	}
+	return nil
+}
+
+func extrapolate(levels []*deltaLevel, n int, f func(*deltaLevel) []float64) Coeffs {
+	c := Coeffs{Values: make([]float64, n), Errors: make([]float64, n)}
+	v := make([]float64, len(levels))
+	for k := 0; k < n; k++ {
+		for i, l := range levels {
+			v[i] = f(l)[k]
+		}
+		c.Values[k], c.Errors[k] = richardson(v, deltaRichardsonPowers)
+	}
+	return c
+}
+
+// substitutePrec is the precision of the change of variables; the inputs
+// are float64, the substitution adds exact binomial sums.
+const substitutePrec = 128
+
+func substitute(c []float64, f func(*series.Series) (*series.Series, error)) ([]float64, error) {
+	s, err := series.FromFloat64(substitutePrec, c...)
+	if err != nil {
+		return nil, err
+	}
+	t, err := f(s)
+	if err != nil {
+		return nil, err
+	}
+	out := make([]float64, len(c))
+	for k := range out {
+		out[k], _ = t.Coeff(k).Float64()
+	}
+	return out, nil
+}

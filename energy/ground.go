@@ -1,0 +1,278 @@
+package energy
+
+import (
+	"fmt"
+	"math"
+)
+
+// GroundParams selects a low-temperature extraction: the finite-beta
+// series on a geometric ladder of Steps temperatures from BetaMin to
+// BetaMax, fitted order by order.
+type GroundParams struct {
+	Order            int
+	BetaMin, BetaMax float64 // 0 means the defaults of each expansion
+	Steps            int     // 0 means the default of each expansion
+	// Progress, when not nil, receives the fraction done and a short status.
+	Progress func(frac float64, detail string)
+}
+
+// GroundSeries holds E_0, S_0 and alpha_S as series in Variable, each
+// coefficient with an error bar, the exact S_0 coefficients for comparison,
+// and the finite-beta series they were fitted from.
+type GroundSeries struct {
+	Variable          string
+	E0, S0, AlphaS    Coeffs
+	S0Exact           []float64
+	Ladder            []*FiniteBeta
+	BetaMin, BetaMax  float64
+	FitsPerOrder      []int // accepted fits per order
+	TotalFitsPerOrder []int
+}
+
+// S0Deviation returns, per order, (fitted - exact)/error of S_0: the
+// built-in test of the whole chain (grid, Richardson, fits).
+func (g *GroundSeries) S0Deviation() []float64 {
+	out := make([]float64, g.S0.Len())
+	for k := range out {
+		out[k] = (g.S0.Values[k] - g.S0Exact[k]) / g.S0.Errors[k]
+	}
+	return out
+}
+
+// Defaults of the q = 2 ladder.
+const (
+	DefaultDeltaBetaMin = 50
+	DefaultDeltaBetaMax = 6400
+	DefaultDeltaSteps   = 15
+)
+
+func (p *GroundParams) fill(bmin, bmax float64, steps int) error {
+	if p.BetaMin == 0 {
+		p.BetaMin = bmin
+	}
+	if p.BetaMax == 0 {
+		p.BetaMax = bmax
+	}
+	if p.Steps == 0 {
+		p.Steps = steps
+	}
+	switch {
+	case p.Order < 0:
+		return fmt.Errorf("%w: order must be >= 0, got %d", ErrInput, p.Order)
+	case !(p.BetaMin > 0) || !(p.BetaMax > p.BetaMin) || math.IsInf(p.BetaMax, 0):
+		return fmt.Errorf("%w: need 0 < beta-min < beta-max < infinity, got %g, %g", ErrInput, p.BetaMin, p.BetaMax)
+	case p.Steps < 8:
+		return fmt.Errorf("%w: the low-temperature fits need at least 8 temperatures, got %d", ErrInput, p.Steps)
+	}
+	return nil
+}
+
+func (p *GroundParams) betas() []float64 {
+	b := make([]float64, p.Steps)
+	for i := range b {
+		b[i] = p.BetaMin * math.Pow(p.BetaMax/p.BetaMin, float64(i)/float64(p.Steps-1))
+	}
+	return b
+}
+
+// deltaCorrections lists the corrections to log Z at order k of the q = 2
+// expansion, most important first. The first non-soft operator has
+// h_1 -> 4 at q = 2 and contributes beta^{-(h_1-2)}, i.e. beta^{-2}
+// (log beta)^j at order k with j < k (its amplitude vanishes at q = 2, where
+// the free fermion's E - E_0 has only even powers of T: Sommerfeld with an
+// even density of states); then beta^{-3} and beta^{-4} with up to k logs.
+func deltaCorrections(k int) []corrTerm {
+	var t []corrTerm
+	for j := 0; j < k; j++ {
+		t = append(t, corrTerm{2, j})
+	}
+	for _, p := range []float64{3, 4} {
+		for j := 0; j <= k; j++ {
+			t = append(t, corrTerm{p, j})
+		}
+	}
+	return t
+}
+
+// DeltaGround expands log Z and E in delta = q - 2 on a ladder of
+// temperatures (DeltaExpand) and fits, order by order,
+// log Z_k = -beta E_{0,k} + S_{0,k} + 2 pi^2 alpha_{S,k}/beta + corrections
+// to E_k and S_k = log Z_k + beta E_k jointly. The result is in delta.
+func DeltaGround(p GroundParams) (*GroundSeries, error) { return groundAroundTwo(p, false) }
+
+// EpsGround is DeltaGround with the finite-beta series converted to
+// eps = 1 - 2/q on every grid, so that the error bars come from the
+// Richardson extrapolation and the fits of the eps-coefficients themselves
+// (converting error bars of delta-coefficients would add them up with the
+// binomial weights of the substitution, a gross overestimate).
+func EpsGround(p GroundParams) (*GroundSeries, error) { return groundAroundTwo(p, true) }
+
+func groundAroundTwo(p GroundParams, eps bool) (*GroundSeries, error) {
+	if err := p.fill(DefaultDeltaBetaMin, DefaultDeltaBetaMax, DefaultDeltaSteps); err != nil {
+		return nil, err
+	}
+	if p.Order > MaxDeltaOrder {
+		return nil, fmt.Errorf("%w: order %d is above the maximum %d of the q = 2 expansion", ErrOrder, p.Order, MaxDeltaOrder)
+	}
+	betas := p.betas()
+	var work, done float64
+	for _, b := range betas {
+		work += b
+	}
+	ladder := make([]*FiniteBeta, len(betas))
+	for i, b := range betas {
+		if p.Progress != nil {
+			p.Progress(done/work, fmt.Sprintf("beta %.4g (%d/%d)", b, i+1, len(betas)))
+		}
+		v := VarDelta
+		if eps {
+			v = VarEps
+		}
+		f, err := DeltaExpand(DeltaParams{Beta: b, Order: p.Order, Variable: v})
+		if err != nil {
+			return nil, fmt.Errorf("ladder step beta=%g: %w", b, err)
+		}
+		ladder[i] = f
+		done += b
+	}
+	if p.Progress != nil {
+		p.Progress(1, "fits")
+	}
+	g, err := groundFromLadder(ladder, deltaCorrections)
+	if err != nil {
+		return nil, err
+	}
+	g.Variable = VarDelta
+	exact := ExactS0Delta
+	if eps {
+		g.Variable = VarEps
+		exact = ExactS0Eps
+	}
+	g.S0Exact, err = floats(exact(p.Order, 128))
+	if err != nil {
+		return nil, err
+	}
+	return g, nil
+}
+
+// groundFromLadder fits every order of the ladder's series.
+func groundFromLadder(ladder []*FiniteBeta, corr func(k int) []corrTerm) (*GroundSeries, error) {
+	return groundFromLadderFrom(ladder, corr, 0)
+}
+
+// groundFromLadderFrom fits the orders from first on; lower orders are left
+// zero with zero error (they are exact and set by the caller).
+func groundFromLadderFrom(ladder []*FiniteBeta, corr func(k int) []corrTerm, first int) (*GroundSeries, error) {
+	n := ladder[0].E.Len()
+	g := &GroundSeries{Ladder: ladder, BetaMin: ladder[0].Beta, BetaMax: ladder[len(ladder)-1].Beta}
+	for _, c := range []*Coeffs{&g.E0, &g.S0, &g.AlphaS} {
+		c.Values = make([]float64, n)
+		c.Errors = make([]float64, n)
+	}
+	m := len(ladder)
+	beta := make([]float64, m)
+	e, ee, s, se := make([]float64, m), make([]float64, m), make([]float64, m), make([]float64, m)
+	for k := 0; k < first; k++ {
+		g.FitsPerOrder = append(g.FitsPerOrder, 0)
+		g.TotalFitsPerOrder = append(g.TotalFitsPerOrder, 0)
+	}
+	for k := first; k < n; k++ {
+		for i, f := range ladder {
+			b := f.Beta
+			beta[i] = b
+			e[i] = f.E.Values[k]
+			s[i] = f.LogZ.Values[k] + b*e[i]
+			// Floors keep the weights finite when an error estimate vanishes.
+			ee[i] = f.E.Errors[k] + 1e-15*(1+math.Abs(e[i]))
+			se[i] = f.LogZ.Errors[k] + b*f.E.Errors[k] + 1e-14*(1+math.Abs(f.LogZ.Values[k]))
+		}
+		est, err := extractLowT(beta, e, ee, s, se, corr(k), max(8, m/2))
+		if err != nil {
+			return nil, fmt.Errorf("order %d: %w", k, err)
+		}
+		g.E0.Values[k], g.E0.Errors[k] = est.E0, est.E0Err
+		g.S0.Values[k], g.S0.Errors[k] = est.S0, est.S0Err
+		g.AlphaS.Values[k], g.AlphaS.Errors[k] = est.AlphaS, est.AlphaSErr
+		acc := 0
+		for _, f := range est.Fits {
+			if f.Accepted {
+				acc++
+			}
+		}
+		g.FitsPerOrder = append(g.FitsPerOrder, acc)
+		g.TotalFitsPerOrder = append(g.TotalFitsPerOrder, len(est.Fits))
+	}
+	return g, nil
+}
+
+// Defaults of the q = infinity ladder.
+const (
+	DefaultInvQBetaMin = 100
+	DefaultInvQBetaMax = 6400
+	DefaultInvQSteps   = 13
+	// invQPointsPerBeta: the higher orders of the 1/q expansion need a finer
+	// grid than the q = 2 expansion for the same accuracy.
+	invQPointsPerBeta = 64
+)
+
+// invQCorrections lists the corrections to log Z at every order of the 1/q
+// expansion: powers beta^{-2} ... beta^{-8}. At large q the operator
+// dimensions tend to odd integers, h_n -> 2n + 1, so the non-Schwarzian
+// corrections are integer powers at leading order; the fitted S_0 at every
+// order reproducing the exact series is the check that no log(beta) terms
+// are missed at the orders computed.
+func invQCorrections(int) []corrTerm {
+	var t []corrTerm
+	for p := 2.0; p <= 8; p++ {
+		t = append(t, corrTerm{p, 0})
+	}
+	return t
+}
+
+// InvQGround expands log Z and E in x = 1/q on a ladder of temperatures
+// (InvQExpand) and fits every order k >= 2 like DeltaGround. The
+// coefficients of x^0 and x^1 are exact: E_0 = 0, 0; S_0 = (1/2) log 2, 0;
+// alpha_S = 0, 0.
+func InvQGround(p GroundParams) (*GroundSeries, error) {
+	if err := p.fill(DefaultInvQBetaMin, DefaultInvQBetaMax, DefaultInvQSteps); err != nil {
+		return nil, err
+	}
+	if p.Order < 2 || p.Order > MaxInvQOrder {
+		return nil, fmt.Errorf("%w: the 1/q expansion takes orders 2..%d, got %d", ErrOrder, MaxInvQOrder, p.Order)
+	}
+	betas := p.betas()
+	var work, done float64
+	for _, b := range betas {
+		work += b
+	}
+	ladder := make([]*FiniteBeta, len(betas))
+	for i, b := range betas {
+		if p.Progress != nil {
+			p.Progress(done/work, fmt.Sprintf("beta %.4g (%d/%d)", b, i+1, len(betas)))
+		}
+		n := 256
+		for float64(n) < invQPointsPerBeta*b && n < MaxGridPoints {
+			n *= 2
+		}
+		f, err := InvQExpand(InvQParams{Beta: b, Order: p.Order, Points: n})
+		if err != nil {
+			return nil, fmt.Errorf("ladder step beta=%g: %w", b, err)
+		}
+		ladder[i] = f
+		done += b
+	}
+	if p.Progress != nil {
+		p.Progress(1, "fits")
+	}
+	g, err := groundFromLadderFrom(ladder, invQCorrections, 2)
+	if err != nil {
+		return nil, err
+	}
+	g.Variable = VarX
+	g.S0.Values[0] = 0.5 * math.Ln2
+	g.S0Exact, err = floats(ExactS0InvQ(p.Order, 128))
+	if err != nil {
+		return nil, err
+	}
+	return g, nil
+}

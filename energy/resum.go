@@ -1,0 +1,230 @@
+package energy
+
+import (
+	"fmt"
+	"math"
+	"math/big"
+	"math/rand/v2"
+
+	"qbridge/series"
+)
+
+// Estimate is one resummed value with its error bar and how it was obtained.
+type Estimate struct {
+	Method     string
+	Value, Err float64
+	Detail     string
+}
+
+// Quantities that can be resummed.
+const (
+	QuantityE0     = "e0"
+	QuantityAlphaS = "alpha"
+)
+
+// Method names of the resummations.
+const (
+	MethodPartialEps  = "eps partial sum"
+	MethodPartialInvQ = "1/q partial sum"
+	MethodPadeEps     = "eps Pade"
+	MethodPadeInvQ    = "1/q Pade"
+	MethodTwoPoint    = "two-point Pade"
+)
+
+// resumPrec is the working precision of the Pade tables (the coefficients
+// are float64; the extra bits keep the linear algebra exact enough).
+const resumPrec = 128
+
+// Normalised returns the coefficients of q^2 F as a function of x = 1/q,
+// finite at both ends, from the ground series of F around q = 2 (in eps)
+// and around q = infinity (in x): around infinity the series in x (the x^0
+// and x^1 coefficients of F vanish), around q = 2 the series in
+// u = x - 1/2, from q^2 = 4/(1-eps)^2 and eps = -2u.
+func Normalised(eps, invq Coeffs) (atInf, atTwo Coeffs, err error) {
+	if invq.Len() < 3 {
+		return Coeffs{}, Coeffs{}, fmt.Errorf("%w: the 1/q series needs order >= 2", ErrInput)
+	}
+	if invq.Values[0] != 0 || invq.Values[1] != 0 {
+		return Coeffs{}, Coeffs{}, fmt.Errorf("energy: the 1/q series of this quantity must start at x^2")
+	}
+	atInf = Coeffs{Values: invq.Values[2:], Errors: invq.Errors[2:]}
+	n := eps.Len()
+	pre := make([]float64, n) // 4/(1-eps)^2 = 4 sum (j+1) eps^j
+	for j := range pre {
+		pre[j] = 4 * float64(j+1)
+	}
+	v := fsMul(pre, eps.Values, n)
+	e := fsMul(pre, eps.Errors, n) // non-negative weights: errors add
+	atTwo = Coeffs{Values: make([]float64, n), Errors: make([]float64, n)}
+	f := 1.0
+	for j := 0; j < n; j++ {
+		atTwo.Values[j] = v[j] * f
+		atTwo.Errors[j] = e[j] * math.Abs(f)
+		f *= -2
+	}
+	return atInf, atTwo, nil
+}
+
+// Resum evaluates F(q) from its normalised series (see Normalised): partial
+// sums and Pade tables from each end, and the two-point Pade built on both.
+// Each error bar adds the spread of the approximants (truncation) and the
+// largest shift of the value when the coefficients move within their error
+// bars (8 deterministic sign patterns).
+func Resum(q float64, atInf, atTwo Coeffs) ([]Estimate, error) {
+	if math.IsNaN(q) || q < 2 {
+		return nil, fmt.Errorf("%w: q must be a real number >= 2, got %g", ErrInput, q)
+	}
+	x := 0.0
+	if !math.IsInf(q, 1) {
+		x = 1 / q
+	}
+	q2 := 1.0 / (x * x) // q^2; +Inf at q = infinity
+	scale := func(v float64) float64 {
+		if x == 0 {
+			return v // q^2 F at q = infinity; the caller labels it
+		}
+		return v / q2
+	}
+	u := x - 0.5
+	var out []Estimate
+	// Partial sums.
+	for _, c := range []struct {
+		name string
+		s    Coeffs
+		t    float64
+	}{{MethodPartialEps, atTwo, u}, {MethodPartialInvQ, atInf, x}} {
+		v, last := 0.0, 0.0
+		tk := 1.0
+		err := 0.0
+		for k, a := range c.s.Values {
+			last = a * tk
+			v += last
+			err += c.s.Errors[k] * math.Abs(tk)
+			tk *= c.t
+		}
+		out = append(out, Estimate{Method: c.name, Value: scale(v), Err: scale(math.Abs(last) + err),
+			Detail: fmt.Sprintf("%d terms; error = last term + coefficient errors", c.s.Len())})
+	}
+	// One-point Pade tables.
+	for _, c := range []struct {
+		name string
+		s    Coeffs
+		t    float64
+	}{{MethodPadeEps, atTwo, u}, {MethodPadeInvQ, atInf, x}} {
+		f := func(vals []float64) (*series.Resummed, error) {
+			s, err := series.FromFloat64(resumPrec, vals...)
+			if err != nil {
+				return nil, err
+			}
+			return series.PadeTable(s, big.NewFloat(c.t), series.PadeTableOptions{})
+		}
+		est, err := withCoefficientErrors(c.s, f)
+		if err != nil {
+			out = append(out, Estimate{Method: c.name, Value: math.NaN(), Err: math.NaN(), Detail: "not available: " + err.Error()})
+			continue
+		}
+		est.Method = c.name
+		est.Value, est.Err = scale(est.Value), scale(est.Err)
+		out = append(out, est)
+	}
+	// Two-point Pade on x = 0 and x = 1/2.
+	f := func(a, b []float64) (*series.Resummed, error) {
+		sa, err := series.FromFloat64(resumPrec, a...)
+		if err != nil {
+			return nil, err
+		}
+		sb, err := series.FromFloat64(resumPrec, b...)
+		if err != nil {
+			return nil, err
+		}
+		return series.ResumTwoPoint(sa, big.NewFloat(0), sb, big.NewFloat(0.5), big.NewFloat(x), series.TwoPointOptions{})
+	}
+	est, err := withCoefficientErrors2(atInf, atTwo, f)
+	if err != nil {
+		out = append(out, Estimate{Method: MethodTwoPoint, Value: math.NaN(), Err: math.NaN(), Detail: "not available: " + err.Error()})
+	} else {
+		est.Method = MethodTwoPoint
+		est.Value, est.Err = scale(est.Value), scale(est.Err)
+		out = append(out, est)
+	}
+	return out, nil
+}
+
+// coefficientSamples is the number of sign patterns used to propagate the
+// coefficient error bars through a resummation.
+const coefficientSamples = 8
+
+func withCoefficientErrors(c Coeffs, f func([]float64) (*series.Resummed, error)) (Estimate, error) {
+	return withCoefficientErrors2(c, Coeffs{}, func(a, _ []float64) (*series.Resummed, error) { return f(a) })
+}
+
+// withCoefficientErrors2 evaluates f on the central coefficients and on
+// sign patterns c_k +- err_k (a fixed-seed generator: reproducible), and
+// returns the central value with error = truncation spread + largest shift.
+func withCoefficientErrors2(a, b Coeffs, f func(a, b []float64) (*series.Resummed, error)) (Estimate, error) {
+	r, err := f(a.Values, b.Values)
+	if err != nil {
+		return Estimate{}, err
+	}
+	v, _ := r.Value.Float64()
+	trunc, _ := r.Err.Float64()
+	rng := rand.New(rand.NewPCG(1, 2))
+	shift := 0.0
+	perturb := func(c Coeffs) []float64 {
+		out := make([]float64, c.Len())
+		for k := range out {
+			s := 1.0
+			if rng.IntN(2) == 0 {
+				s = -1
+			}
+			out[k] = c.Values[k] + s*c.Errors[k]
+		}
+		return out
+	}
+	for i := 0; i < coefficientSamples; i++ {
+		rp, err := f(perturb(a), perturb(b))
+		if err != nil {
+			continue
+		}
+		w, _ := rp.Value.Float64()
+		shift = math.Max(shift, math.Abs(w-v))
+	}
+	return Estimate{Value: v, Err: trunc + shift, Detail: r.Method}, nil
+}
+
+// Resummation is the resummed value of one quantity at one q.
+type Resummation struct {
+	Quantity string
+	Q        float64
+	// AtInf and AtTwo are the normalised series q^2 F in x = 1/q around
+	// x = 0 and in x - 1/2 around q = 2 (see Normalised).
+	AtInf, AtTwo Coeffs
+	Estimates    []Estimate
+}
+
+// ResumGround resums quantity (QuantityE0 or QuantityAlphaS) at q from the
+// ground series around q = 2 (variable eps, from EpsGround) and around
+// q = infinity (from InvQGround).
+func ResumGround(quantity string, q float64, eps, invq *GroundSeries) (*Resummation, error) {
+	if eps == nil || invq == nil || eps.Variable != VarEps || invq.Variable != VarX {
+		return nil, fmt.Errorf("energy: ResumGround needs an eps series and a 1/q series")
+	}
+	var a, b Coeffs
+	switch quantity {
+	case QuantityE0:
+		a, b = eps.E0, invq.E0
+	case QuantityAlphaS:
+		a, b = eps.AlphaS, invq.AlphaS
+	default:
+		return nil, fmt.Errorf("%w: quantity must be %q or %q, got %q", ErrInput, QuantityE0, QuantityAlphaS, quantity)
+	}
+	inf, two, err := Normalised(a, b)
+	if err != nil {
+		return nil, err
+	}
+	est, err := Resum(q, inf, two)
+	if err != nil {
+		return nil, err
+	}
+	return &Resummation{Quantity: quantity, Q: q, AtInf: inf, AtTwo: two, Estimates: est}, nil
+}
