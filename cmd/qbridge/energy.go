@@ -1,9 +1,3 @@
-//go:build energycli
-
-// The seriesProviders, resumProviders and reportRowProviders hooks this file
-// registers with are not on this branch yet; drop the build constraint above
-// once they are merged (go build -tags energycli checks the file until then).
-
 package main
 
 import (
@@ -85,7 +79,7 @@ func decimals(v []float64) []string {
 	return out
 }
 
-func errStrings(v []float64) []string {
+func floatErrStrings(v []float64) []string {
 	out := make([]string, len(v))
 	for i, x := range v {
 		out[i] = fmtErr(big.NewFloat(x))
@@ -139,8 +133,8 @@ func energySeries(quantity string) seriesProvider {
 			BetaMax      float64  `json:"beta_max"`
 			Temperatures int      `json:"temperatures"`
 			Units        string   `json:"units"`
-		}{quantity, around, variable, decimals(c.Values), errStrings(c.Errors),
-			s0JSON{decimals(g.S0.Values), errStrings(g.S0.Errors), decimals(g.S0Exact), finiteOrZero(dev)},
+		}{quantity, around, variable, decimals(c.Values), floatErrStrings(c.Errors),
+			s0JSON{decimals(g.S0.Values), floatErrStrings(g.S0.Errors), decimals(g.S0Exact), finiteOrZero(dev)},
 			g.BetaMin, g.BetaMax, len(g.Ladder), "script-J = 1"}
 		rows := make([][]string, c.Len())
 		for k := range rows {
@@ -230,7 +224,7 @@ func logZSeries(cmd *cobra.Command, end expansion.End, order int) (*Output, erro
 		Energy       []string `json:"energy_coefficients"`
 		EnergyErrors []string `json:"energy_errors"`
 		Points       int      `json:"points"`
-	}{"logz", around, variable, b, decimals(f.LogZ.Values), errStrings(f.LogZ.Errors), decimals(f.E.Values), errStrings(f.E.Errors), f.Points}
+	}{"logz", around, variable, b, decimals(f.LogZ.Values), floatErrStrings(f.LogZ.Errors), decimals(f.E.Values), floatErrStrings(f.E.Errors), f.Points}
 	rows := make([][]string, f.LogZ.Len())
 	for k := range rows {
 		rows[k] = []string{fmt.Sprint(k), fmtFloat(f.LogZ.Values[k], opts.Digits), fmtErr(big.NewFloat(f.LogZ.Errors[k])),

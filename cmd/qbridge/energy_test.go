@@ -1,9 +1,3 @@
-//go:build energycli
-
-// The seriesProviders, resumProviders and reportRowProviders hooks this file
-// registers with are not on this branch yet; drop the build constraint above
-// once they are merged (go build -tags energycli checks the file until then).
-
 package main
 
 import (
