@@ -232,3 +232,18 @@ func BSeries(end End, order, digits int) ([]*Coefficients, error) {
 	}
 	return []*Coefficients{bq, r}, nil
 }
+
+// S0Taylor returns the Taylor series of S_0 to the given order around an
+// end (in eps around q = 2, in x around infinity) at prec bits, without the
+// two-precision error estimate of S0Series: for callers that need the exact
+// series as a reference inside their own computation.
+func S0Taylor(end End, order int, prec uint) (*series.Series, error) {
+	if err := checkOrder(order); err != nil {
+		return nil, err
+	}
+	c, err := s0Series(end, order, prec)
+	if err != nil {
+		return nil, err
+	}
+	return series.FromBig(prec, c)
+}
