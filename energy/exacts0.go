@@ -35,5 +35,5 @@ func ExactS0Delta(order int, prec uint) (*series.Series, error) {
 	if err != nil {
 		return nil, err
 	}
-	return series.EpsToDelta(s)
+	return expansion.EpsToDelta(s)
 }

@@ -7,6 +7,7 @@ import (
 	"math/rand/v2"
 
 	"qbridge/series"
+	"qbridge/series/pade"
 )
 
 // Estimate is one resummed value with its error bar and how it was obtained.
@@ -111,12 +112,12 @@ func Resum(q float64, atInf, atTwo Coeffs) ([]Estimate, error) {
 		s    Coeffs
 		t    float64
 	}{{MethodPadeEps, atTwo, u}, {MethodPadeInvQ, atInf, x}} {
-		f := func(vals []float64) (*series.Resummed, error) {
+		f := func(vals []float64) (*pade.Resummed, error) {
 			s, err := series.FromFloat64(resumPrec, vals...)
 			if err != nil {
 				return nil, err
 			}
-			return series.PadeTable(s, big.NewFloat(c.t), series.PadeTableOptions{})
+			return pade.PadeTable(s, big.NewFloat(c.t), pade.PadeTableOptions{})
 		}
 		est, err := withCoefficientErrors(c.s, f)
 		if err != nil {
@@ -128,7 +129,7 @@ func Resum(q float64, atInf, atTwo Coeffs) ([]Estimate, error) {
 		out = append(out, est)
 	}
 	// Two-point Pade on x = 0 and x = 1/2.
-	f := func(a, b []float64) (*series.Resummed, error) {
+	f := func(a, b []float64) (*pade.Resummed, error) {
 		sa, err := series.FromFloat64(resumPrec, a...)
 		if err != nil {
 			return nil, err
@@ -137,7 +138,7 @@ func Resum(q float64, atInf, atTwo Coeffs) ([]Estimate, error) {
 		if err != nil {
 			return nil, err
 		}
-		return series.ResumTwoPoint(sa, big.NewFloat(0), sb, big.NewFloat(0.5), big.NewFloat(x), series.TwoPointOptions{})
+		return pade.ResumTwoPoint(sa, big.NewFloat(0), sb, big.NewFloat(0.5), big.NewFloat(x), pade.TwoPointOptions{})
 	}
 	est, err := withCoefficientErrors2(atInf, atTwo, f)
 	if err != nil {
@@ -154,14 +155,14 @@ func Resum(q float64, atInf, atTwo Coeffs) ([]Estimate, error) {
 // coefficient error bars through a resummation.
 const coefficientSamples = 8
 
-func withCoefficientErrors(c Coeffs, f func([]float64) (*series.Resummed, error)) (Estimate, error) {
-	return withCoefficientErrors2(c, Coeffs{}, func(a, _ []float64) (*series.Resummed, error) { return f(a) })
+func withCoefficientErrors(c Coeffs, f func([]float64) (*pade.Resummed, error)) (Estimate, error) {
+	return withCoefficientErrors2(c, Coeffs{}, func(a, _ []float64) (*pade.Resummed, error) { return f(a) })
 }
 
 // withCoefficientErrors2 evaluates f on the central coefficients and on
 // sign patterns c_k +- err_k (a fixed-seed generator: reproducible), and
 // returns the central value with error = truncation spread + largest shift.
-func withCoefficientErrors2(a, b Coeffs, f func(a, b []float64) (*series.Resummed, error)) (Estimate, error) {
+func withCoefficientErrors2(a, b Coeffs, f func(a, b []float64) (*pade.Resummed, error)) (Estimate, error) {
 	r, err := f(a.Values, b.Values)
 	if err != nil {
 		return Estimate{}, err

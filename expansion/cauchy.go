@@ -6,42 +6,43 @@ import (
 	"math/big"
 
 	"qbridge/series"
+	"qbridge/series/scalar"
 )
 
 // kernelComplex evaluates k_A(h) at complex h and complex Delta = 1/q from
 // the product of Gamma functions as written (MS 2016, arXiv:1604.07818),
 // without the pole cancellation used by the series solver.
-func kernelComplex(h, delta series.Complex, prec uint) (series.Complex, error) {
-	c := func(re float64) series.Complex { return series.ComplexFloat64(re, 0, prec) }
-	halfH := series.CScale(h, bigFrac(1, 2, prec), prec)
+func kernelComplex(h, delta scalar.Complex, prec uint) (scalar.Complex, error) {
+	c := func(re float64) scalar.Complex { return scalar.ComplexFloat64(re, 0, prec) }
+	halfH := scalar.CScale(h, bigFrac(1, 2, prec), prec)
 	args := []struct {
-		z   series.Complex
+		z   scalar.Complex
 		num bool
 	}{
-		{series.CSub(c(1.5), delta, prec), true},
-		{series.CSub(c(1), delta, prec), true},
-		{series.CAdd(c(0.5), delta, prec), false},
+		{scalar.CSub(c(1.5), delta, prec), true},
+		{scalar.CSub(c(1), delta, prec), true},
+		{scalar.CAdd(c(0.5), delta, prec), false},
 		{delta, false},
-		{series.CAdd(delta, halfH, prec), true},
-		{series.CSub(series.CAdd(c(0.5), delta, prec), halfH, prec), true},
-		{series.CSub(series.CSub(c(1.5), delta, prec), halfH, prec), false},
-		{series.CAdd(series.CSub(c(1), delta, prec), halfH, prec), false},
+		{scalar.CAdd(delta, halfH, prec), true},
+		{scalar.CSub(scalar.CAdd(c(0.5), delta, prec), halfH, prec), true},
+		{scalar.CSub(scalar.CSub(c(1.5), delta, prec), halfH, prec), false},
+		{scalar.CAdd(scalar.CSub(c(1), delta, prec), halfH, prec), false},
 	}
 	// -(q - 1) = 1 - 1/Delta
-	inv, err := series.CDiv(c(1), delta, prec)
+	inv, err := scalar.CDiv(c(1), delta, prec)
 	if err != nil {
-		return series.Complex{}, err
+		return scalar.Complex{}, err
 	}
-	out := series.CSub(c(1), inv, prec)
+	out := scalar.CSub(c(1), inv, prec)
 	for _, a := range args {
-		g, err := series.CGamma(a.z, prec)
+		g, err := scalar.CGamma(a.z, prec)
 		if err != nil {
-			return series.Complex{}, err
+			return scalar.Complex{}, err
 		}
 		if a.num {
-			out = series.CMul(out, g, prec)
-		} else if out, err = series.CDiv(out, g, prec); err != nil {
-			return series.Complex{}, err
+			out = scalar.CMul(out, g, prec)
+		} else if out, err = scalar.CDiv(out, g, prec); err != nil {
+			return scalar.Complex{}, err
 		}
 	}
 	return out, nil
@@ -49,24 +50,24 @@ func kernelComplex(h, delta series.Complex, prec uint) (series.Complex, error) {
 
 // dimensionComplex solves k_A(h) = 1 at complex s (eps or x) by the secant
 // method started from the guess h0.
-func dimensionComplex(end End, s, h0 series.Complex, prec uint) (series.Complex, error) {
-	var delta series.Complex
+func dimensionComplex(end End, s, h0 scalar.Complex, prec uint) (scalar.Complex, error) {
+	var delta scalar.Complex
 	if end == AroundTwo {
 		// Delta = (1 - eps)/2
-		delta = series.CScale(series.CSub(series.ComplexFloat64(1, 0, prec), s, prec), bigFrac(1, 2, prec), prec)
+		delta = scalar.CScale(scalar.CSub(scalar.ComplexFloat64(1, 0, prec), s, prec), bigFrac(1, 2, prec), prec)
 	} else {
 		delta = s
 	}
-	f := func(h series.Complex) (series.Complex, error) {
+	f := func(h scalar.Complex) (scalar.Complex, error) {
 		k, err := kernelComplex(h, delta, prec)
 		if err != nil {
 			return k, err
 		}
-		return series.CSub(k, series.ComplexFloat64(1, 0, prec), prec), nil
+		return scalar.CSub(k, scalar.ComplexFloat64(1, 0, prec), prec), nil
 	}
 	step := new(big.Float).SetMantExp(big.NewFloat(1), -int(prec)/3)
 	x0 := h0
-	x1 := series.CAdd(h0, series.NewComplex(step, nil, prec), prec)
+	x1 := scalar.CAdd(h0, scalar.NewComplex(step, nil, prec), prec)
 	f0, err := f(x0)
 	if err != nil {
 		return x0, err
@@ -76,17 +77,17 @@ func dimensionComplex(end End, s, h0 series.Complex, prec uint) (series.Complex,
 		if err != nil {
 			return x1, err
 		}
-		den := series.CSub(f1, f0, prec)
-		if series.CAbs2(den, prec).Sign() == 0 {
+		den := scalar.CSub(f1, f0, prec)
+		if scalar.CAbs2(den, prec).Sign() == 0 {
 			return x1, nil
 		}
-		d, err := series.CDiv(series.CMul(f1, series.CSub(x1, x0, prec), prec), den, prec)
+		d, err := scalar.CDiv(scalar.CMul(f1, scalar.CSub(x1, x0, prec), prec), den, prec)
 		if err != nil {
 			return x1, err
 		}
 		x0, f0 = x1, f1
-		x1 = series.CSub(x1, d, prec)
-		ad := series.CAbs(d, 64)
+		x1 = scalar.CSub(x1, d, prec)
+		ad := scalar.CAbs(d, 64)
 		if ad.Sign() == 0 || ad.MantExp(nil) < -int(prec)+12 {
 			return x1, nil
 		}
@@ -115,27 +116,27 @@ func DimensionCauchy(end End, n, order int, radius float64, nodes, digits int) (
 		return nil, err
 	}
 	r := new(big.Float).SetPrec(prec).SetFloat64(radius)
-	sums := make([]series.Complex, order+1)
+	sums := make([]scalar.Complex, order+1)
 	for k := range sums {
-		sums[k] = series.ComplexFloat64(0, 0, prec)
+		sums[k] = scalar.ComplexFloat64(0, 0, prec)
 	}
-	pi := series.Pi(prec)
+	pi := scalar.Pi(prec)
 	for j := 0; j < nodes; j++ {
 		theta := new(big.Float).SetPrec(prec).Mul(pi, bigFrac(int64(2*j), int64(nodes), prec))
-		sn, cs := series.BigSinCos(theta, prec)
-		unit := series.NewComplex(cs, sn, prec) // e^(i theta)
-		s := series.CScale(unit, r, prec)
+		sn, cs := scalar.BigSinCos(theta, prec)
+		unit := scalar.NewComplex(cs, sn, prec) // e^(i theta)
+		s := scalar.CScale(unit, r, prec)
 		h0 := series.EvalComplex(gs, s)
 		h, err := dimensionComplex(end, s, h0, prec)
 		if err != nil {
 			return nil, err
 		}
 		// accumulate h e^(-i k theta)
-		conj := series.NewComplex(cs, new(big.Float).Neg(sn), prec)
-		w := series.ComplexFloat64(1, 0, prec)
+		conj := scalar.NewComplex(cs, new(big.Float).Neg(sn), prec)
+		w := scalar.ComplexFloat64(1, 0, prec)
 		for k := 0; k <= order; k++ {
-			sums[k] = series.CAdd(sums[k], series.CMul(h, w, prec), prec)
-			w = series.CMul(w, conj, prec)
+			sums[k] = scalar.CAdd(sums[k], scalar.CMul(h, w, prec), prec)
+			w = scalar.CMul(w, conj, prec)
 		}
 	}
 	out := make([]*big.Float, order+1)

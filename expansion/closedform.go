@@ -5,7 +5,8 @@ import (
 	"math/big"
 	"strings"
 
-	"qbridge/series"
+	"qbridge/series/pslq"
+	"qbridge/series/scalar"
 )
 
 // ClosedFormBasisDoc describes the basis that IdentifyCoefficients tries.
@@ -29,17 +30,17 @@ type basisElem struct {
 // closedFormBasis returns the products of pi^2, zeta(3), zeta(5), log 2 of
 // weight minWeight..maxWeight, lowest weight first, at prec bits.
 func closedFormBasis(minWeight, maxWeight int, prec uint) ([]basisElem, error) {
-	pi := series.Pi(prec)
+	pi := scalar.Pi(prec)
 	pi2 := new(big.Float).SetPrec(prec).Mul(pi, pi)
-	z3, err := series.BigZeta(bigInt(3, prec), prec)
+	z3, err := scalar.BigZeta(bigInt(3, prec), prec)
 	if err != nil {
 		return nil, err
 	}
-	z5, err := series.BigZeta(bigInt(5, prec), prec)
+	z5, err := scalar.BigZeta(bigInt(5, prec), prec)
 	if err != nil {
 		return nil, err
 	}
-	l2 := series.Ln2(prec)
+	l2 := scalar.Ln2(prec)
 	type gen struct {
 		text, tex string
 		w         int
@@ -133,7 +134,7 @@ func identify(v, err *big.Float, minWeight, maxWeight int, prec uint) (*ClosedFo
 	for _, b := range basis {
 		vec = append(vec, b.value)
 	}
-	r, ferr := series.FindRelation(vec, findDigits, 1_000_000_000_000)
+	r, ferr := pslq.FindRelation(vec, findDigits, 1_000_000_000_000)
 	if ferr != nil || r == nil {
 		return nil, nil // no verified relation: the number stands alone
 	}

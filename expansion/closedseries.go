@@ -5,6 +5,7 @@ import (
 	"math/big"
 
 	"qbridge/series"
+	"qbridge/series/scalar"
 )
 
 // twoPrecision runs a coefficient computation at two working precisions
@@ -43,7 +44,7 @@ func tanOverArg(n int, prec uint) (*series.Series, error) {
 	if err != nil {
 		return nil, err
 	}
-	t, err := series.Tan(series.Scale(u, series.Pi(prec)))
+	t, err := series.Tan(series.Scale(u, scalar.Pi(prec)))
 	if err != nil {
 		return nil, err
 	}
@@ -51,7 +52,7 @@ func tanOverArg(n int, prec uint) (*series.Series, error) {
 	if err != nil {
 		return nil, err
 	}
-	inv := new(big.Float).SetPrec(prec).Quo(bigInt(1, prec), series.Pi(prec))
+	inv := new(big.Float).SetPrec(prec).Quo(bigInt(1, prec), scalar.Pi(prec))
 	return series.Scale(t, inv), nil
 }
 
@@ -109,14 +110,14 @@ func s0Series(end End, order int, prec uint) ([]*big.Float, error) {
 	if err != nil {
 		return nil, err
 	}
-	pi := series.Pi(prec)
+	pi := scalar.Pi(prec)
 	pi2 := new(big.Float).SetPrec(prec).Mul(pi, pi)
 	// pi (1/2 - t) tan(pi t) = pi^2 t (1/2 - t) T(t): multiply by t via the
 	// integral's shift: integrand/t is pi^2 (1/2 - t) T(t).
 	g := series.Scale(series.Mul(w, t), pi2) // integrand / t
 	c := g.Coeffs()
 	out := make([]*big.Float, n)
-	out[0] = new(big.Float).SetPrec(prec).Mul(series.Ln2(prec), bigFrac(1, 2, prec))
+	out[0] = new(big.Float).SetPrec(prec).Mul(scalar.Ln2(prec), bigFrac(1, 2, prec))
 	for k := 2; k < n; k++ {
 		// int_0^x t^(k-1) c_{k-2} dt = c_{k-2} x^k / k
 		v := new(big.Float).SetPrec(prec).Quo(c[k-2], bigInt(int64(k), prec))
@@ -144,7 +145,7 @@ func S0Series(end End, order, digits int) (*Coefficients, error) {
 // b^q = x (1/2 - x) T(x) with T(x) = tan(pi x)/(pi x).
 func bSeries(end End, order int, prec uint) ([]*big.Float, error) {
 	n := order + 1
-	pi := series.Pi(prec)
+	pi := scalar.Pi(prec)
 	pi2 := new(big.Float).SetPrec(prec).Mul(pi, pi)
 	if end == AroundTwo {
 		g, err := argCotArg(n, prec) // (pi a) cot(pi a) in a; z = pi eps/2 means a = eps/2

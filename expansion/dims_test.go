@@ -7,15 +7,16 @@ import (
 	"testing"
 
 	"qbridge/series"
+	"qbridge/series/scalar"
 )
 
 // kernelQ4 is the q = 4 closed form k_A(h) = -(3/2) tan(pi(h - 1/2)/2)/(h - 1/2)
 // (Maldacena-Stanford 2016, arXiv:1604.07818), independent of the Gamma code.
 func kernelQ4(h *big.Float, prec uint) *big.Float {
 	u := new(big.Float).SetPrec(prec).Sub(h, big.NewFloat(0.5))
-	arg := new(big.Float).SetPrec(prec).Mul(u, series.Pi(prec))
+	arg := new(big.Float).SetPrec(prec).Mul(u, scalar.Pi(prec))
 	arg.Quo(arg, big.NewFloat(2))
-	s, c := series.BigSinCos(arg, prec)
+	s, c := scalar.BigSinCos(arg, prec)
 	k := new(big.Float).SetPrec(prec).Quo(s, c)
 	k.Quo(k, u)
 	return k.Mul(k, big.NewFloat(-1.5))

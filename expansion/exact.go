@@ -4,7 +4,7 @@ import (
 	"fmt"
 	"math/big"
 
-	"qbridge/series"
+	"qbridge/series/scalar"
 )
 
 // bExact returns b(q) at prec bits from b^q pi = (1/2 - 1/q) tan(pi/q)
@@ -12,7 +12,7 @@ import (
 // b(2) = 1/pi and b(infinity) = 1.
 func bExact(q QPoint, prec uint) (*big.Float, error) {
 	p := prec + 32
-	pi := series.Pi(p)
+	pi := scalar.Pi(p)
 	if q.Inf {
 		return bigInt(1, prec), nil
 	}
@@ -21,11 +21,11 @@ func bExact(q QPoint, prec uint) (*big.Float, error) {
 	}
 	x := q.X(p)
 	a := new(big.Float).SetPrec(p).Sub(bigFrac(1, 2, p), x) // 1/2 - 1/q
-	s, c := series.BigSinCos(new(big.Float).SetPrec(p).Mul(pi, x), p)
+	s, c := scalar.BigSinCos(new(big.Float).SetPrec(p).Mul(pi, x), p)
 	bq := new(big.Float).SetPrec(p).Mul(a, s)
 	bq.Quo(bq, c)
 	bq.Quo(bq, pi)
-	b, err := series.BigPow(bq, x, p)
+	b, err := scalar.BigPow(bq, x, p)
 	if err != nil {
 		return nil, err
 	}
@@ -38,7 +38,7 @@ func bExact(q QPoint, prec uint) (*big.Float, error) {
 func clausen2(theta *big.Float, prec uint) (*big.Float, error) {
 	p := prec + 32
 	t := new(big.Float).SetPrec(p).Set(theta)
-	lt, err := series.BigLog(t, p)
+	lt, err := scalar.BigLog(t, p)
 	if err != nil {
 		return nil, err
 	}
@@ -50,7 +50,7 @@ func clausen2(theta *big.Float, prec uint) (*big.Float, error) {
 	for k := 1; k < 100000; k++ {
 		pw.Mul(pw, t2)
 		pw.Quo(pw, bigInt(int64((2*k)*(2*k+1)), p))
-		bn, err := series.Bernoulli(2 * k)
+		bn, err := scalar.Bernoulli(2 * k)
 		if err != nil {
 			return nil, err
 		}
@@ -75,11 +75,11 @@ func s0Exact(q QPoint, prec uint) (*big.Float, error) {
 		return new(big.Float).SetPrec(prec), nil
 	}
 	a := new(big.Float).SetPrec(p).Sub(bigFrac(1, 2, p), q.X(p))
-	pi := series.Pi(p)
+	pi := scalar.Pi(p)
 	pa := new(big.Float).SetPrec(p).Mul(pi, a)
-	s, _ := series.BigSinCos(pa, p)
+	s, _ := scalar.BigSinCos(pa, p)
 	s.Mul(s, bigInt(2, p))
-	ls, err := series.BigLog(s, p)
+	ls, err := scalar.BigLog(s, p)
 	if err != nil {
 		return nil, err
 	}

@@ -7,6 +7,7 @@ import (
 	"math/big"
 
 	"qbridge/series"
+	"qbridge/series/scalar"
 )
 
 // funcKind names the two functions an implicit equation is built from.
@@ -141,7 +142,7 @@ func (e *logEquation) eval(y *series.Series) (*evaluation, error) {
 		switch tm.kind {
 		case kindLogGamma:
 			n := u.Len()
-			tay, terr := series.LogGammaTaylor(u.Coeff(0), n+1, e.prec)
+			tay, terr := scalar.LogGammaTaylor(u.Coeff(0), n+1, e.prec)
 			if terr != nil {
 				return nil, terr
 			}

@@ -3,7 +3,7 @@ package expansion
 import (
 	"math/big"
 
-	"qbridge/series"
+	"qbridge/series/scalar"
 )
 
 // Published is a value from the literature, with the digits as printed
@@ -59,11 +59,11 @@ func PublishedS0(q QPoint) Published {
 	}
 	x := q.X(64)
 	v := new(big.Float).SetPrec(64).Mul(x, x)
-	pi := series.Pi(64)
+	pi := scalar.Pi(64)
 	v.Mul(v, pi)
 	v.Mul(v, pi)
 	v.Quo(v, big.NewFloat(4))
-	l := series.Ln2(64)
+	l := scalar.Ln2(64)
 	l.Quo(l, big.NewFloat(2))
 	return Published{Value: v.Sub(l, v), Source: "large-q formula log(2)/2 - pi^2/(4q^2), MS 2016 arXiv:1604.07818"}
 }

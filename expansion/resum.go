@@ -5,6 +5,8 @@ import (
 	"math/big"
 
 	"qbridge/series"
+	"qbridge/series/pade"
+	"qbridge/series/scalar"
 )
 
 // Estimate is one resummed value of a quantity at a given q.
@@ -69,7 +71,7 @@ func bqAroundTwo(order int, prec uint) ([]*big.Float, error) {
 	if err != nil {
 		return nil, err
 	}
-	pi := series.Pi(prec)
+	pi := scalar.Pi(prec)
 	pi2 := new(big.Float).SetPrec(prec).Mul(pi, pi)
 	g = rescale(g, bigFrac(1, 2, prec))
 	g = series.Scale(g, new(big.Float).SetPrec(prec).Quo(bigInt(1, prec), pi2))
@@ -143,7 +145,7 @@ func Resum(quantity string, q QPoint, n, order, digits int) (*Resummation, error
 		at   *big.Float
 	}{{"eps", st, eps}, {"1/q", si, x}} {
 		add(partialSumEstimate(end.name, end.s, end.at))
-		if pt, err := series.PadeTable(end.s, end.at, series.PadeTableOptions{}); err == nil {
+		if pt, err := pade.PadeTable(end.s, end.at, pade.PadeTableOptions{}); err == nil {
 			add(Estimate{Method: end.name + " Pade", Value: pt.Value, Err: pt.Err,
 				Detail: fmt.Sprintf("[%d/%d], %d entries; %s", pt.L, pt.M, pt.Used, pt.Method)})
 		} else {
@@ -152,7 +154,7 @@ func Resum(quantity string, q QPoint, n, order, digits int) (*Resummation, error
 	}
 	half := bigFrac(1, 2, prec)
 	zero := new(big.Float).SetPrec(prec)
-	if tp, err := series.ResumTwoPoint(si, zero, epsToXMinusHalf(st), half, x, series.TwoPointOptions{}); err == nil {
+	if tp, err := pade.ResumTwoPoint(si, zero, epsToXMinusHalf(st), half, x, pade.TwoPointOptions{}); err == nil {
 		add(Estimate{Method: "two-point Pade", Value: tp.Value, Err: tp.Err,
 			Detail: fmt.Sprintf("[%d/%d] from %d terms at x = 0 and %d at x = 1/2, %d entries; %s", tp.L, tp.M, tp.K1, tp.K2, tp.Used, tp.Method)})
 	} else {
@@ -191,7 +193,7 @@ func bFromBq(e Estimate, q QPoint, prec uint) Estimate {
 		return e
 	}
 	x := q.X(prec)
-	b, err := series.BigPow(e.Value, x, prec)
+	b, err := scalar.BigPow(e.Value, x, prec)
 	if err != nil {
 		e.Value, e.Err = nil, nil
 		return e

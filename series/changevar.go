@@ -1,6 +1,8 @@
 package series
 
 import (
+	"qbridge/series/scalar"
+
 	"fmt"
 	"math/big"
 )
@@ -45,14 +47,14 @@ func Mobius(s *Series, a, b, c, d *big.Float) (*Series, error) {
 		return nil, fmt.Errorf("series: Mobius: coefficients must be finite")
 	}
 	if d.Sign() == 0 {
-		return nil, fmt.Errorf("series: Mobius: d = 0 puts a pole of t(u) at u = 0: %w", ErrDomain)
+		return nil, fmt.Errorf("series: Mobius: d = 0 puts a pole of t(u) at u = 0: %w", scalar.ErrDomain)
 	}
 	n := len(s.c)
-	wp := elemWorkPrec(s.prec, n) + guard
+	wp := elemWorkPrec(s.prec, n) + scalar.Guard
 	det := new(big.Float).SetPrec(wp).Mul(a, d)
 	det.Sub(det, new(big.Float).SetPrec(wp).Mul(b, c))
 	if det.Sign() == 0 {
-		return nil, fmt.Errorf("series: Mobius: a d - b c = 0, t(u) is constant: %w", ErrDomain)
+		return nil, fmt.Errorf("series: Mobius: a d - b c = 0, t(u) is constant: %w", scalar.ErrDomain)
 	}
 	p := elemCopyAt(s.c, n, wp)
 	if b.Sign() != 0 {
@@ -89,7 +91,7 @@ func Affine(s *Series, a, b *big.Float) (*Series, error) {
 		return nil, fmt.Errorf("series: Affine: coefficients must be finite")
 	}
 	n := len(s.c)
-	wp := elemWorkPrec(s.prec, n) + guard
+	wp := elemWorkPrec(s.prec, n) + scalar.Guard
 	q := elemTaylorShift(s.c, a, wp)
 	pw := new(big.Float).SetPrec(wp).SetInt64(1)
 	for k := 1; k < n; k++ {
@@ -97,19 +99,4 @@ func Affine(s *Series, a, b *big.Float) (*Series, error) {
 		q[k].Mul(q[k], pw)
 	}
 	return elemRound(q, s.prec), nil
-}
-
-// EpsToDelta turns a series in eps = 1 - 2/q into the series in
-// delta = q - 2 of the same function, using eps = delta/(2 + delta). Both
-// variables vanish at q = 2, so this is an exact identity of truncated
-// series.
-func EpsToDelta(s *Series) (*Series, error) {
-	return Mobius(s, big.NewFloat(1), new(big.Float), big.NewFloat(1), big.NewFloat(2))
-}
-
-// DeltaToEps turns a series in delta = q - 2 into the series in
-// eps = 1 - 2/q of the same function, using delta = 2 eps/(1 - eps); the
-// inverse of EpsToDelta, also exact.
-func DeltaToEps(s *Series) (*Series, error) {
-	return Mobius(s, big.NewFloat(2), new(big.Float), big.NewFloat(-1), big.NewFloat(1))
 }

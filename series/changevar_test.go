@@ -1,6 +1,8 @@
 package series
 
 import (
+	"qbridge/series/scalar"
+
 	"errors"
 	"math/big"
 	"testing"
@@ -8,53 +10,6 @@ import (
 
 // eps = delta/(2 + delta) and delta = 2 eps/(1 - eps) (eps = 1 - 2/q,
 // delta = q - 2): closed forms and the round trip.
-func TestEpsDelta(t *testing.T) {
-	const prec, n = 256, 20
-	id := elemTVar(n, prec)
-	t.Run("EpsToDelta(eps) = delta/(2+delta) = sum (-1)^(k-1) delta^k/2^k", func(t *testing.T) {
-		got, err := EpsToDelta(id)
-		if err != nil {
-			t.Fatal(err)
-		}
-		want := newZero(n, prec)
-		for k := 1; k < n; k++ {
-			want.c[k].SetMantExp(big.NewFloat(float64(1-2*((k-1)%2))), -k)
-		}
-		elemTAssertClose(t, "eps(delta)", got, want, prec-4)
-	})
-	t.Run("DeltaToEps(delta) = 2 eps/(1-eps) = sum 2 eps^k", func(t *testing.T) {
-		got, err := DeltaToEps(id)
-		if err != nil {
-			t.Fatal(err)
-		}
-		want := newZero(n, prec)
-		for k := 1; k < n; k++ {
-			want.c[k].SetInt64(2)
-		}
-		elemTAssertClose(t, "delta(eps)", got, want, prec-4)
-	})
-	t.Run("q = 2/(1-eps) in eps becomes 2 + delta", func(t *testing.T) {
-		q, _ := Inv(elemTFromStrings(t, prec, "0.5", "-0.5", "0", "0", "0", "0", "0", "0"))
-		got, err := EpsToDelta(q)
-		if err != nil {
-			t.Fatal(err)
-		}
-		elemTAssertClose(t, "q(delta)", got, elemTFromStrings(t, prec, "2", "1", "0", "0", "0", "0", "0", "0"), prec-8)
-	})
-	t.Run("round trip", func(t *testing.T) {
-		s := elemTFromStrings(t, prec, "0.25", "1", "-3", "0.5", "2", "0", "7", "-1", "0.125", "1", "1", "1")
-		d, err := EpsToDelta(s)
-		if err != nil {
-			t.Fatal(err)
-		}
-		back, err := DeltaToEps(d)
-		if err != nil {
-			t.Fatal(err)
-		}
-		elemTAssertClose(t, "DeltaToEps(EpsToDelta(s))", back, s, prec-16)
-	})
-}
-
 // With b != 0, Mobius re-expands the polynomial: compare with building
 // P(t(u)) from t(u) = (a u + b)/(c u + d) by series arithmetic (Div, Mul).
 func TestMobiusAffineReexpansion(t *testing.T) {
@@ -86,10 +41,10 @@ func TestMobiusAffineReexpansion(t *testing.T) {
 	}
 	elemTAssertClose(t, "Affine", got, horner(AddConst(Scale(u, b2), a2)), prec-16)
 
-	if _, err := Mobius(p, a, b, c, new(big.Float)); !errors.Is(err, ErrDomain) {
+	if _, err := Mobius(p, a, b, c, new(big.Float)); !errors.Is(err, scalar.ErrDomain) {
 		t.Errorf("Mobius with d = 0: err = %v", err)
 	}
-	if _, err := Mobius(p, big.NewFloat(2), big.NewFloat(1), big.NewFloat(4), big.NewFloat(2)); !errors.Is(err, ErrDomain) {
+	if _, err := Mobius(p, big.NewFloat(2), big.NewFloat(1), big.NewFloat(4), big.NewFloat(2)); !errors.Is(err, scalar.ErrDomain) {
 		t.Errorf("Mobius with ad - bc = 0: err = %v", err)
 	}
 	if _, err := Mobius(p, nil, b, c, d); err == nil {

@@ -1,6 +1,8 @@
 package series
 
 import (
+	"qbridge/series/scalar"
+
 	"fmt"
 	"math/big"
 )
@@ -51,7 +53,7 @@ func Compose(f, g *Series) (*Series, error) {
 	}
 	if g.c[0].Sign() != 0 {
 		return nil, fmt.Errorf("series: Compose: inner series has nonzero constant term %s: %w",
-			g.c[0].Text('g', 10), ErrDomain)
+			g.c[0].Text('g', 10), scalar.ErrDomain)
 	}
 	n := minLen(f, g)
 	prec := maxPrec(f, g)
@@ -76,12 +78,12 @@ func Revert(f *Series) (*Series, error) {
 		return nil, fmt.Errorf("series: Revert: need at least 2 coefficients to see f'(0), got %d", n)
 	}
 	if f.c[0].Sign() != 0 {
-		return nil, fmt.Errorf("series: Revert: f(0) = %s is not zero: %w", f.c[0].Text('g', 10), ErrDomain)
+		return nil, fmt.Errorf("series: Revert: f(0) = %s is not zero: %w", f.c[0].Text('g', 10), scalar.ErrDomain)
 	}
 	if f.c[1].Sign() == 0 {
-		return nil, fmt.Errorf("series: Revert: f'(0) = 0, f is not invertible as a power series: %w", ErrDomain)
+		return nil, fmt.Errorf("series: Revert: f'(0) = 0, f is not invertible as a power series: %w", scalar.ErrDomain)
 	}
-	wp := elemWorkPrec(f.prec, n) + guard // powers of h can cancel
+	wp := elemWorkPrec(f.prec, n) + scalar.Guard // powers of h can cancel
 	one := []*big.Float{new(big.Float).SetPrec(wp).SetInt64(1)}
 	h := elemDivTrunc(one, f.c[1:], n-1, wp) // t/f(t) = 1/(f_1 + f_2 t + ...)
 	g := elemZeros(n, wp)

@@ -1,6 +1,8 @@
 package series
 
 import (
+	"qbridge/series/scalar"
+
 	"errors"
 	"math/big"
 	"testing"
@@ -97,7 +99,7 @@ func TestComposeRevertErrors(t *testing.T) {
 	const prec = 64
 	f := elemTFromStrings(t, prec, "1", "2", "3")
 	g1 := elemTFromStrings(t, prec, "0.5", "1", "0")
-	if _, err := Compose(f, g1); !errors.Is(err, ErrDomain) {
+	if _, err := Compose(f, g1); !errors.Is(err, scalar.ErrDomain) {
 		t.Errorf("Compose with g(0) != 0: err = %v", err)
 	}
 	if _, err := Compose(nil, g1); err == nil {

@@ -1,6 +1,8 @@
 package series
 
 import (
+	"qbridge/series/scalar"
+
 	"fmt"
 	"math/big"
 )
@@ -41,7 +43,7 @@ func Exp(a *Series) (*Series, error) {
 	wp := elemWorkPrec(a.prec, n)
 	da := elemScaledDeriv(a.c, n, wp)
 	f := elemZeros(n, wp)
-	f[0] = BigExp(a.c[0], wp)
+	f[0] = scalar.BigExp(a.c[0], wp)
 	t := new(big.Float).SetPrec(wp)
 	k := new(big.Float)
 	for m := 1; m < n; m++ {
@@ -66,12 +68,12 @@ func Log(a *Series) (*Series, error) {
 		return nil, err
 	}
 	if a.c[0].Sign() <= 0 {
-		return nil, fmt.Errorf("series: Log: constant term %s is not positive: %w", a.c[0].Text('g', 10), ErrDomain)
+		return nil, fmt.Errorf("series: Log: constant term %s is not positive: %w", a.c[0].Text('g', 10), scalar.ErrDomain)
 	}
 	n := len(a.c)
 	wp := elemWorkPrec(a.prec, n)
 	f := elemZeros(n, wp)
-	l0, err := BigLog(a.c[0], wp)
+	l0, err := scalar.BigLog(a.c[0], wp)
 	if err != nil {
 		return nil, err
 	}
@@ -108,12 +110,12 @@ func Pow(a *Series, p *big.Float) (*Series, error) {
 		return nil, fmt.Errorf("series: Pow: exponent must be a finite number")
 	}
 	if a.c[0].Sign() <= 0 {
-		return nil, fmt.Errorf("series: Pow: constant term %s is not positive: %w", a.c[0].Text('g', 10), ErrDomain)
+		return nil, fmt.Errorf("series: Pow: constant term %s is not positive: %w", a.c[0].Text('g', 10), scalar.ErrDomain)
 	}
 	n := len(a.c)
 	wp := elemWorkPrec(a.prec, n)
 	f := elemZeros(n, wp)
-	f0, err := BigPow(a.c[0], p, wp)
+	f0, err := scalar.BigPow(a.c[0], p, wp)
 	if err != nil {
 		return nil, err
 	}
@@ -152,7 +154,7 @@ func Sqrt(a *Series) (*Series, error) {
 		return nil, err
 	}
 	if a.c[0].Sign() <= 0 {
-		return nil, fmt.Errorf("series: Sqrt: constant term %s is not positive: %w", a.c[0].Text('g', 10), ErrDomain)
+		return nil, fmt.Errorf("series: Sqrt: constant term %s is not positive: %w", a.c[0].Text('g', 10), scalar.ErrDomain)
 	}
 	n := len(a.c)
 	wp := elemWorkPrec(a.prec, n)
@@ -189,7 +191,7 @@ func elemSinCos(a []*big.Float, n int, wp uint) (s, c []*big.Float) {
 	da := elemScaledDeriv(a, n, wp)
 	s = elemZeros(n, wp)
 	c = elemZeros(n, wp)
-	s[0], c[0] = BigSinCos(a[0], wp)
+	s[0], c[0] = scalar.BigSinCos(a[0], wp)
 	t := new(big.Float).SetPrec(wp)
 	k := new(big.Float)
 	for m := 1; m < n; m++ {
@@ -231,9 +233,9 @@ func Tan(a *Series) (*Series, error) {
 	}
 	n := len(a.c)
 	wp := elemWorkPrec(a.prec, n)
-	s0, c0 := BigSinCos(a.c[0], wp)
+	s0, c0 := scalar.BigSinCos(a.c[0], wp)
 	if c0.Sign() == 0 || c0.MantExp(nil) <= 2-int(a.prec) {
-		return nil, fmt.Errorf("series: Tan: cos(a(0)) vanishes at a(0) = %s: %w", a.c[0].Text('g', 10), ErrDomain)
+		return nil, fmt.Errorf("series: Tan: cos(a(0)) vanishes at a(0) = %s: %w", a.c[0].Text('g', 10), scalar.ErrDomain)
 	}
 	da := elemScaledDeriv(a.c, n, wp)
 	f := elemZeros(n, wp)
@@ -276,7 +278,7 @@ func Atan(a *Series) (*Series, error) {
 	n := len(a.c)
 	wp := elemWorkPrec(a.prec, n)
 	f := elemZeros(n, wp)
-	f[0] = BigAtan(a.c[0], wp)
+	f[0] = scalar.BigAtan(a.c[0], wp)
 	if n == 1 {
 		return elemRound(f, a.prec), nil
 	}

@@ -1,6 +1,9 @@
 package series
 
-import "math/big"
+import (
+	"math/big"
+	"qbridge/series/scalar"
+)
 
 // Eval returns the truncated polynomial s(x) = sum_k s_k x^k by Horner's
 // rule, carried out with guard bits and rounded to s.Prec(). A nil x is
@@ -21,15 +24,15 @@ func Eval(s *Series, x *big.Float) *big.Float {
 // EvalComplex returns the truncated polynomial s(z) at a complex point z by
 // Horner's rule, with guard bits, rounded to s.Prec(). Nil parts of z are
 // taken as zero.
-func EvalComplex(s *Series, z Complex) Complex {
+func EvalComplex(s *Series, z scalar.Complex) scalar.Complex {
 	wp := elemWorkPrec(s.prec, len(s.c))
-	zz := NewComplex(z.Re, z.Im, wp)
-	acc := NewComplex(nil, nil, wp)
+	zz := scalar.NewComplex(z.Re, z.Im, wp)
+	acc := scalar.NewComplex(nil, nil, wp)
 	for k := len(s.c) - 1; k >= 0; k-- {
-		acc = CMul(acc, zz, wp)
+		acc = scalar.CMul(acc, zz, wp)
 		acc.Re.Add(acc.Re, s.c[k])
 	}
-	return NewComplex(acc.Re, acc.Im, s.prec)
+	return scalar.NewComplex(acc.Re, acc.Im, s.prec)
 }
 
 // PartialSums returns the n partial sums S_k = sum_{j<k} s_j x^j for

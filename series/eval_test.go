@@ -1,6 +1,8 @@
 package series
 
 import (
+	"qbridge/series/scalar"
+
 	"math/big"
 	"testing"
 )
@@ -42,18 +44,18 @@ func TestEvalGeometric(t *testing.T) {
 		}
 	}
 	// Complex: z = i, sum_{k<17} i^k = (1 - i^17)/(1 - i) = (1 - i)/(1 - i) = 1.
-	z := ComplexFloat64(0, 1, prec)
+	z := scalar.ComplexFloat64(0, 1, prec)
 	got := EvalComplex(s, z)
 	if got.Re.Cmp(big.NewFloat(1)) != 0 || got.Im.Sign() != 0 {
 		t.Errorf("EvalComplex at i = %v, want 1", got.Complex128())
 	}
 	// z = 0.3 + 0.4i against (1 - z^n)/(1 - z).
-	z = NewComplex(elemTRat(3, 10, prec), elemTRat(4, 10, prec), prec)
-	pw := ComplexFloat64(1, 0, prec+64)
+	z = scalar.NewComplex(elemTRat(3, 10, prec), elemTRat(4, 10, prec), prec)
+	pw := scalar.ComplexFloat64(1, 0, prec+64)
 	for i := 0; i < n; i++ {
-		pw = CMul(pw, z, prec+64)
+		pw = scalar.CMul(pw, z, prec+64)
 	}
-	want, _ := CDiv(CSub(ComplexFloat64(1, 0, prec+64), pw, prec+64), CSub(ComplexFloat64(1, 0, prec+64), z, prec+64), prec+64)
+	want, _ := scalar.CDiv(scalar.CSub(scalar.ComplexFloat64(1, 0, prec+64), pw, prec+64), scalar.CSub(scalar.ComplexFloat64(1, 0, prec+64), z, prec+64), prec+64)
 	got = EvalComplex(s, z)
 	if !elemTCloseFloat(got.Re, want.Re, prec-4) || !elemTCloseFloat(got.Im, want.Im, prec-4) {
 		t.Errorf("EvalComplex at 0.3+0.4i = %v, want %v", got.Complex128(), want.Complex128())
@@ -67,7 +69,7 @@ func TestEvalExpSeries(t *testing.T) {
 	e, _ := Exp(elemTVar(n, prec))
 	x := big.NewFloat(0.5)
 	got := Eval(e, x)
-	want := BigExp(x, prec)
+	want := scalar.BigExp(x, prec)
 	d := new(big.Float).Sub(got, want)
 	d.Abs(d)
 	// 0.5^60/60! * 2 < 1e-99

@@ -1,6 +1,8 @@
 package series
 
 import (
+	"qbridge/series/scalar"
+
 	"fmt"
 	"math/big"
 	"math/bits"
@@ -10,7 +12,7 @@ import (
 // n whose result is wanted at prec bits: the package guard plus a few bits
 // for the O(n) roundings that accumulate in each coefficient.
 func elemWorkPrec(prec uint, n int) uint {
-	return prec + guard + uint(bits.Len(uint(n)))
+	return prec + scalar.Guard + uint(bits.Len(uint(n)))
 }
 
 // elemCheck rejects nil or empty series (the zero value of Series is not
@@ -104,7 +106,7 @@ func Inv(a *Series) (*Series, error) {
 		return nil, err
 	}
 	if a.c[0].Sign() == 0 {
-		return nil, fmt.Errorf("series: Inv: constant term is zero: %w", ErrDomain)
+		return nil, fmt.Errorf("series: Inv: constant term is zero: %w", scalar.ErrDomain)
 	}
 	n := len(a.c)
 	wp := elemWorkPrec(a.prec, n)
@@ -119,7 +121,7 @@ func Div(a, b *Series) (*Series, error) {
 		return nil, err
 	}
 	if b.c[0].Sign() == 0 {
-		return nil, fmt.Errorf("series: Div: constant term of the divisor is zero: %w", ErrDomain)
+		return nil, fmt.Errorf("series: Div: constant term of the divisor is zero: %w", scalar.ErrDomain)
 	}
 	n := minLen(a, b)
 	prec := maxPrec(a, b)

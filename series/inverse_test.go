@@ -1,6 +1,8 @@
 package series
 
 import (
+	"qbridge/series/scalar"
+
 	"errors"
 	"math/big"
 	"testing"
@@ -49,10 +51,10 @@ func TestDivShapeAndErrors(t *testing.T) {
 		t.Fatalf("(1+2t)/(1+t) = %v, want [1, 1]", q)
 	}
 	zero := elemTFromStrings(t, 100, "0", "1")
-	if _, err := Inv(zero); !errors.Is(err, ErrDomain) {
+	if _, err := Inv(zero); !errors.Is(err, scalar.ErrDomain) {
 		t.Errorf("Inv with a(0)=0: err = %v, want ErrDomain", err)
 	}
-	if _, err := Div(a, zero); !errors.Is(err, ErrDomain) {
+	if _, err := Div(a, zero); !errors.Is(err, scalar.ErrDomain) {
 		t.Errorf("Div by b(0)=0: err = %v, want ErrDomain", err)
 	}
 	if _, err := Div(nil, a); err == nil {

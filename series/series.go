@@ -5,13 +5,8 @@ import (
 	"fmt"
 	"math"
 	"math/big"
+	"qbridge/series/scalar"
 )
-
-// MaxPrec is the largest working precision, in bits, that the package accepts.
-const MaxPrec = 1 << 20
-
-// ErrPrec is returned for a precision of zero bits or above MaxPrec.
-var ErrPrec = errors.New("series: precision must be between 1 and 2^20 bits")
 
 // ErrLength is returned for a negative or zero series length.
 var ErrLength = errors.New("series: length must be positive")
@@ -24,14 +19,13 @@ type Series struct {
 	c    []*big.Float
 }
 
-func checkArgs(n int, prec uint) error {
+// CheckShape returns an error unless n >= 1 and 1 <= prec <= scalar.MaxPrec: the
+// argument check of every constructor of a series.
+func CheckShape(n int, prec uint) error {
 	if n <= 0 {
 		return fmt.Errorf("%w (got %d)", ErrLength, n)
 	}
-	if prec == 0 || prec > MaxPrec {
-		return fmt.Errorf("%w (got %d)", ErrPrec, prec)
-	}
-	return nil
+	return scalar.CheckPrec(prec)
 }
 
 // newZero is New without argument checks, for internal use.
@@ -45,7 +39,7 @@ func newZero(n int, prec uint) *Series {
 
 // New returns the zero series of length n at prec bits.
 func New(n int, prec uint) (*Series, error) {
-	if err := checkArgs(n, prec); err != nil {
+	if err := CheckShape(n, prec); err != nil {
 		return nil, err
 	}
 	return newZero(n, prec), nil
@@ -53,7 +47,7 @@ func New(n int, prec uint) (*Series, error) {
 
 // FromFloat64 returns the series with the given coefficients at prec bits.
 func FromFloat64(prec uint, coeffs ...float64) (*Series, error) {
-	if err := checkArgs(len(coeffs), prec); err != nil {
+	if err := CheckShape(len(coeffs), prec); err != nil {
 		return nil, err
 	}
 	s := newZero(len(coeffs), prec)
@@ -69,7 +63,7 @@ func FromFloat64(prec uint, coeffs ...float64) (*Series, error) {
 // FromBig returns the series with copies of the given coefficients,
 // rounded to prec bits.
 func FromBig(prec uint, coeffs []*big.Float) (*Series, error) {
-	if err := checkArgs(len(coeffs), prec); err != nil {
+	if err := CheckShape(len(coeffs), prec); err != nil {
 		return nil, err
 	}
 	s := newZero(len(coeffs), prec)
@@ -88,7 +82,7 @@ func FromBig(prec uint, coeffs []*big.Float) (*Series, error) {
 // Variable returns the series x0 + t of length n at prec bits: the
 // expansion variable shifted to the point x0.
 func Variable(n int, prec uint, x0 *big.Float) (*Series, error) {
-	if err := checkArgs(n, prec); err != nil {
+	if err := CheckShape(n, prec); err != nil {
 		return nil, err
 	}
 	s := newZero(n, prec)
@@ -146,7 +140,7 @@ func (s *Series) Copy() *Series {
 // when n exceeds the length (the padded terms are unknown, not zero, so only
 // pad when that is what you mean).
 func (s *Series) Truncate(n int) (*Series, error) {
-	if err := checkArgs(n, s.prec); err != nil {
+	if err := CheckShape(n, s.prec); err != nil {
 		return nil, err
 	}
 	out := newZero(n, s.prec)
@@ -158,7 +152,7 @@ func (s *Series) Truncate(n int) (*Series, error) {
 
 // WithPrec returns a copy of s with every coefficient rounded to prec bits.
 func (s *Series) WithPrec(prec uint) (*Series, error) {
-	if err := checkArgs(len(s.c), prec); err != nil {
+	if err := CheckShape(len(s.c), prec); err != nil {
 		return nil, err
 	}
 	out := newZero(len(s.c), prec)

@@ -24,7 +24,7 @@ def num(v):
 
 
 def close(a, b, tol):
-    return abs(a - b) <= tol + 1e-12 * max(abs(a), abs(b))
+    return a == b or abs(a - b) <= tol + 1e-12 * max(abs(a), abs(b))
 
 
 def walk(a, b, path, out):
