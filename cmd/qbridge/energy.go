@@ -9,7 +9,7 @@ import (
 
 	"github.com/spf13/cobra"
 
-	"qbridge/energy"
+	"qbridge/expansion/energy"
 	"qbridge/expansion"
 )
 

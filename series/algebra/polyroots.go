@@ -12,7 +12,6 @@ import (
 	"gonum.org/v1/gonum/mat"
 )
 
-
 // PolyRoots returns all complex roots of sum_k coeffs[k] x^k at prec bits,
 // each root repeated by its multiplicity. Exactly zero leading coefficients
 // are dropped (a polynomial of degree 0 has no roots); an all-zero

@@ -3,7 +3,7 @@ package energy_test
 import (
 	"fmt"
 
-	"qbridge/energy"
+	"qbridge/expansion/energy"
 )
 
 // Order 0 of the q = 2 expansion is the free (semicircle) model; the first
