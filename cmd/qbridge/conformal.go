@@ -7,7 +7,7 @@ import (
 
 	"github.com/spf13/cobra"
 
-	"qbridge/expansion"
+	"qbridge/expansion/conformal"
 )
 
 // workDigits is the precision the analytic commands compute at: the printed
@@ -17,8 +17,8 @@ func workDigits() int {
 	if d < 20 {
 		d = 20
 	}
-	if d > expansion.MaxDigits {
-		d = expansion.MaxDigits
+	if d > conformal.MaxDigits {
+		d = conformal.MaxDigits
 	}
 	return d
 }
@@ -28,14 +28,14 @@ func checkQuantity(args []string) (string, error) {
 		return "", usageErr("name one quantity: dims, b or s0")
 	}
 	switch args[0] {
-	case expansion.QuantityDims, expansion.QuantityB, expansion.QuantityS0:
+	case conformal.QuantityDims, conformal.QuantityB, conformal.QuantityS0:
 		return args[0], nil
 	}
 	return "", usageErr("unknown quantity %q: known are dims, b, s0", args[0])
 }
 
-func parseQFlag(text string) (expansion.QPoint, error) {
-	q, err := expansion.ParseQ(text, 256)
+func parseQFlag(text string) (conformal.QPoint, error) {
+	q, err := conformal.ParseQ(text, 256)
 	if err != nil {
 		return q, usageErr("%v", err)
 	}
@@ -43,7 +43,7 @@ func parseQFlag(text string) (expansion.QPoint, error) {
 }
 
 // jsonQ renders q for JSON: a decimal string, or "inf".
-func jsonQ(q expansion.QPoint) string { return q.String() }
+func jsonQ(q conformal.QPoint) string { return q.String() }
 
 func valueStrings(xs, errs []*big.Float, digits int) []string {
 	out := make([]string, len(xs))
@@ -87,20 +87,20 @@ from two working precisions.`,
 		if err != nil {
 			return err
 		}
-		var vals []*expansion.Value
+		var vals []*conformal.Value
 		switch quantity {
-		case expansion.QuantityDims:
+		case conformal.QuantityDims:
 			lo, hi, err := parseNRange(exactFlags.n)
 			if err != nil {
 				return err
 			}
-			if hi > expansion.MaxN {
-				return usageErr("--n goes up to %d (got %d)", expansion.MaxN, hi)
+			if hi > conformal.MaxN {
+				return usageErr("--n goes up to %d (got %d)", conformal.MaxN, hi)
 			}
 			pr := newProgress(cmd, "dimensions")
 			for n := lo; n <= hi; n++ {
 				pr.Update(float64(n-lo)/float64(hi-lo+1), "h_"+strconv.Itoa(n))
-				v, err := expansion.Dimension(q, n, workDigits())
+				v, err := conformal.Dimension(q, n, workDigits())
 				if err != nil {
 					pr.Done()
 					return err
@@ -108,14 +108,14 @@ from two working precisions.`,
 				vals = append(vals, v)
 			}
 			pr.Done()
-		case expansion.QuantityB:
-			v, err := expansion.B(q, workDigits())
+		case conformal.QuantityB:
+			v, err := conformal.B(q, workDigits())
 			if err != nil {
 				return err
 			}
 			vals = append(vals, v)
-		case expansion.QuantityS0:
-			v, err := expansion.S0(q, workDigits())
+		case conformal.QuantityS0:
+			v, err := conformal.S0(q, workDigits())
 			if err != nil {
 				return err
 			}
@@ -125,7 +125,7 @@ from two working precisions.`,
 	},
 }
 
-func exactOutput(quantity string, q expansion.QPoint, vals []*expansion.Value) *Output {
+func exactOutput(quantity string, q conformal.QPoint, vals []*conformal.Value) *Output {
 	tab := Table{Title: fmt.Sprintf("%s at q = %s", quantity, q), Header: []string{"quantity", "value", "error"}}
 	var values, errs []string
 	var ns []int

@@ -10,7 +10,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"qbridge/expansion/energy"
-	"qbridge/expansion"
+	"qbridge/expansion/conformal"
 )
 
 // Energy and soft-mode series: E_0, alpha_S and log Z around q = 2 (in eps)
@@ -51,8 +51,8 @@ func energyErr(err error) error {
 	return err
 }
 
-func checkEnergyOrder(end expansion.End, order int) error {
-	if end == expansion.AroundTwo {
+func checkEnergyOrder(end conformal.End, order int) error {
+	if end == conformal.AroundTwo {
 		if order < 0 || order > energy.MaxDeltaOrder {
 			return usageErr("--order %d: the q = 2 expansion takes orders 0..%d (the per-order cost and memory, order x grid points, set the limit)", order, energy.MaxDeltaOrder)
 		}
@@ -64,8 +64,8 @@ func checkEnergyOrder(end expansion.End, order int) error {
 	return nil
 }
 
-func aroundName(end expansion.End) (around, variable string) {
-	if end == expansion.AroundTwo {
+func aroundName(end conformal.End) (around, variable string) {
+	if end == conformal.AroundTwo {
 		return "2", "eps"
 	}
 	return "inf", "x"
@@ -88,18 +88,18 @@ func floatErrStrings(v []float64) []string {
 }
 
 // groundFor runs the low-temperature extraction at one end.
-func groundFor(cmd *cobra.Command, end expansion.End, order int) (*energy.GroundSeries, error) {
+func groundFor(cmd *cobra.Command, end conformal.End, order int) (*energy.GroundSeries, error) {
 	pr := newProgress(cmd, "ground series")
 	defer pr.Done()
 	p := energy.GroundParams{Order: order, Progress: pr.Update}
-	if end == expansion.AroundTwo {
+	if end == conformal.AroundTwo {
 		return energy.EpsGround(p)
 	}
 	return energy.InvQGround(p)
 }
 
 func energySeries(quantity string) seriesProvider {
-	return func(cmd *cobra.Command, end expansion.End, order int) (*Output, error) {
+	return func(cmd *cobra.Command, end conformal.End, order int) (*Output, error) {
 		if err := checkEnergyOrder(end, order); err != nil {
 			return nil, err
 		}
@@ -154,8 +154,8 @@ func energySeries(quantity string) seriesProvider {
 	}
 }
 
-func variableLong(end expansion.End) string {
-	if end == expansion.AroundTwo {
+func variableLong(end conformal.End) string {
+	if end == conformal.AroundTwo {
 		return "eps = 1 - 2/q"
 	}
 	return "x = 1/q"
@@ -178,9 +178,9 @@ func fmtSigma(x float64) string {
 	return fmt.Sprintf("%.2f", x)
 }
 
-func energyNotes(end expansion.End, g *energy.GroundSeries) []string {
+func energyNotes(end conformal.End, g *energy.GroundSeries) []string {
 	var n []string
-	if end == expansion.AroundTwo {
+	if end == conformal.AroundTwo {
 		n = append(n, "Perturbation theory of the SD equations in delta = q - 2 at finite beta (per-frequency algebraic solves, sources by pointwise series arithmetic), converted to eps by delta = 2 eps/(1-eps) on every grid, Richardson-extrapolated in the grid spacing.")
 	} else {
 		n = append(n, "G = (1/2) sgn(tau)[1 + g_1/q + ...]: g_1 the Liouville solution, each g_k from Liouville's fluctuation operator with local and non-local sources, at finite beta, Richardson-extrapolated in the grid spacing.")
@@ -192,7 +192,7 @@ func energyNotes(end expansion.End, g *energy.GroundSeries) []string {
 	return n
 }
 
-func logZSeries(cmd *cobra.Command, end expansion.End, order int) (*Output, error) {
+func logZSeries(cmd *cobra.Command, end conformal.End, order int) (*Output, error) {
 	if err := checkEnergyOrder(end, order); err != nil {
 		return nil, err
 	}
@@ -205,7 +205,7 @@ func logZSeries(cmd *cobra.Command, end expansion.End, order int) (*Output, erro
 	}
 	var f *energy.FiniteBeta
 	var err error
-	if end == expansion.AroundTwo {
+	if end == conformal.AroundTwo {
 		f, err = energy.DeltaExpand(energy.DeltaParams{Beta: b, Order: order, Variable: energy.VarEps})
 	} else {
 		f, err = energy.InvQExpand(energy.InvQParams{Beta: b, Order: order})
@@ -245,7 +245,7 @@ func logZSeries(cmd *cobra.Command, end expansion.End, order int) (*Output, erro
 // ends for both quantities.
 var energyCache = map[[2]int]*energy.GroundSeries{}
 
-func cachedGround(cmd *cobra.Command, end expansion.End, order int) (*energy.GroundSeries, error) {
+func cachedGround(cmd *cobra.Command, end conformal.End, order int) (*energy.GroundSeries, error) {
 	key := [2]int{int(end), order}
 	if g, ok := energyCache[key]; ok {
 		return g, nil
@@ -266,18 +266,18 @@ func resumOrders(order int) (eps, inf int) {
 
 func bothEnds(cmd *cobra.Command, order int) (*energy.GroundSeries, *energy.GroundSeries, error) {
 	eo, io := resumOrders(order)
-	ge, err := cachedGround(cmd, expansion.AroundTwo, eo)
+	ge, err := cachedGround(cmd, conformal.AroundTwo, eo)
 	if err != nil {
 		return nil, nil, err
 	}
-	gi, err := cachedGround(cmd, expansion.AroundInf, io)
+	gi, err := cachedGround(cmd, conformal.AroundInf, io)
 	if err != nil {
 		return nil, nil, err
 	}
 	return ge, gi, nil
 }
 
-func qValue(q expansion.QPoint) (float64, error) {
+func qValue(q conformal.QPoint) (float64, error) {
 	if q.Inf {
 		return 0, usageErr("--q inf: E_0 and alpha_S vanish at q = infinity; their 1/q series (qbridge series e0|alpha --around inf) start at -1/q^2 and 1/(4q^2)")
 	}
@@ -292,7 +292,7 @@ func qValue(q expansion.QPoint) (float64, error) {
 }
 
 func energyResum(quantity string) resumProvider {
-	return func(cmd *cobra.Command, qp expansion.QPoint, order int) (*Output, error) {
+	return func(cmd *cobra.Command, qp conformal.QPoint, order int) (*Output, error) {
 		q, err := qValue(qp)
 		if err != nil {
 			return nil, err
@@ -365,17 +365,17 @@ func nanToZero(x float64) float64 {
 // Published q = 4 values (PHYSICS sec. 8): E_0 = -0.0406 J = -0.05746
 // script-J (Maldacena-Stanford arXiv:1604.07818; Garcia-Garcia-Verbaarschot
 // arXiv:1610.03816; quoted from memory), alpha_S ~ 0.007 (MS 2016).
-func energyPublished(quantity string, q float64) *expansion.Published {
+func energyPublished(quantity string, q float64) *conformal.Published {
 	if q != 4 {
 		return nil
 	}
 	if quantity == energy.QuantityE0 {
-		return &expansion.Published{Value: big.NewFloat(-0.05746), Digits: 4, Source: "MS 2016 arXiv:1604.07818; Garcia-Garcia-Verbaarschot arXiv:1610.03816 (-0.0406 J, from memory)"}
+		return &conformal.Published{Value: big.NewFloat(-0.05746), Digits: 4, Source: "MS 2016 arXiv:1604.07818; Garcia-Garcia-Verbaarschot arXiv:1610.03816 (-0.0406 J, from memory)"}
 	}
-	return &expansion.Published{Value: big.NewFloat(0.007), Digits: 1, Source: "MS 2016 arXiv:1604.07818"}
+	return &conformal.Published{Value: big.NewFloat(0.007), Digits: 1, Source: "MS 2016 arXiv:1604.07818"}
 }
 
-func energyReportRows(cmd *cobra.Command, qp expansion.QPoint, order int) ([]reportRow, error) {
+func energyReportRows(cmd *cobra.Command, qp conformal.QPoint, order int) ([]reportRow, error) {
 	if qp.Inf || qp.Q == nil {
 		return nil, nil // both vanish at q = infinity; nothing to compare
 	}
@@ -402,16 +402,16 @@ func energyReportRows(cmd *cobra.Command, qp expansion.QPoint, order int) ([]rep
 		if err != nil {
 			return nil, energyErr(err)
 		}
-		est := map[string]expansion.Estimate{}
+		est := map[string]conformal.Estimate{}
 		for _, e := range r.Estimates {
 			if e.Method != energy.MethodPadeEps && e.Method != energy.MethodPadeInvQ && e.Method != energy.MethodTwoPoint {
 				continue
 			}
 			if math.IsNaN(e.Value) {
-				est[e.Method] = expansion.Estimate{Method: e.Method, Detail: e.Detail}
+				est[e.Method] = conformal.Estimate{Method: e.Method, Detail: e.Detail}
 				continue
 			}
-			est[e.Method] = expansion.Estimate{Method: e.Method, Value: big.NewFloat(e.Value), Err: big.NewFloat(e.Err), Detail: e.Detail}
+			est[e.Method] = conformal.Estimate{Method: e.Method, Value: big.NewFloat(e.Value), Err: big.NewFloat(e.Err), Detail: e.Detail}
 		}
 		rows = append(rows, reportRow{
 			Quantity: quantityNames[c.qty], Exact: big.NewFloat(c.dv), ExactErr: big.NewFloat(c.de),

@@ -9,7 +9,7 @@ import (
 
 	"github.com/spf13/cobra"
 
-	"qbridge/expansion"
+	"qbridge/expansion/conformal"
 )
 
 // runProvider renders a provider's output as JSON into a map.
@@ -39,7 +39,7 @@ func quietCmd() *cobra.Command {
 // coefficients and errors as parallel arrays of decimal strings.
 func TestEnergySeriesJSON(t *testing.T) {
 	cmd := quietCmd()
-	out, err := seriesProviders["e0"](cmd, expansion.AroundTwo, 3)
+	out, err := seriesProviders["e0"](cmd, conformal.AroundTwo, 3)
 	m := runProvider(t, out, err)
 	if m["quantity"] != "e0" || m["around"] != "2" || m["variable"] != "eps" {
 		t.Errorf("keys: %v", m)
@@ -67,11 +67,11 @@ func TestEnergyBadInput(t *testing.T) {
 		name string
 		err  error
 	}{
-		{"order too high at 2", func() error { _, err := seriesProviders["e0"](cmd, expansion.AroundTwo, 1000); return err }()},
-		{"order too low at inf", func() error { _, err := seriesProviders["alpha"](cmd, expansion.AroundInf, 1); return err }()},
-		{"logz without beta", func() error { _, err := seriesProviders["logz"](cmd, expansion.AroundTwo, 4); return err }()},
+		{"order too high at 2", func() error { _, err := seriesProviders["e0"](cmd, conformal.AroundTwo, 1000); return err }()},
+		{"order too low at inf", func() error { _, err := seriesProviders["alpha"](cmd, conformal.AroundInf, 1); return err }()},
+		{"logz without beta", func() error { _, err := seriesProviders["logz"](cmd, conformal.AroundTwo, 4); return err }()},
 		{"q below 2", func() error {
-			_, err := resumProviders["e0"](cmd, expansion.QPoint{Q: big.NewFloat(1.5)}, 4)
+			_, err := resumProviders["e0"](cmd, conformal.QPoint{Q: big.NewFloat(1.5)}, 4)
 			return err
 		}()},
 	}

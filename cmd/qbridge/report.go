@@ -6,7 +6,7 @@ import (
 
 	"github.com/spf13/cobra"
 
-	"qbridge/expansion"
+	"qbridge/expansion/conformal"
 )
 
 var reportFlags struct {
@@ -23,13 +23,13 @@ type reportRow struct {
 	ExactErr  *big.Float
 	ExactKind string
 	// Estimates by column name (see reportColumns).
-	Estimates map[string]expansion.Estimate
-	Published *expansion.Published
+	Estimates map[string]conformal.Estimate
+	Published *conformal.Published
 }
 
 // reportRowProvider adds rows to the report; files that add quantities
 // register one in reportRowProviders from their init().
-type reportRowProvider func(cmd *cobra.Command, q expansion.QPoint, order int) ([]reportRow, error)
+type reportRowProvider func(cmd *cobra.Command, q conformal.QPoint, order int) ([]reportRow, error)
 
 var reportRowProviders []reportRowProvider
 
@@ -54,8 +54,8 @@ from the exact value. Errors and methods are in the JSON output and the notes.`,
 		if q.Inf {
 			return usageErr("report needs a finite q")
 		}
-		if reportFlags.order < 2 || reportFlags.order > expansion.MaxOrder {
-			return usageErr("--order must be between 2 and %d (got %d)", expansion.MaxOrder, reportFlags.order)
+		if reportFlags.order < 2 || reportFlags.order > conformal.MaxOrder {
+			return usageErr("--order must be between 2 and %d (got %d)", conformal.MaxOrder, reportFlags.order)
 		}
 		type job struct {
 			quantity string
@@ -63,29 +63,29 @@ from the exact value. Errors and methods are in the JSON output and the notes.`,
 		}
 		var jobs []job
 		for n := 1; n <= 6; n++ {
-			jobs = append(jobs, job{expansion.QuantityDims, n})
+			jobs = append(jobs, job{conformal.QuantityDims, n})
 		}
-		jobs = append(jobs, job{expansion.QuantityB, -1}, job{expansion.QuantityS0, -1})
+		jobs = append(jobs, job{conformal.QuantityB, -1}, job{conformal.QuantityS0, -1})
 		pr := newProgress(cmd, "report")
 		var rows []reportRow
 		for i, j := range jobs {
 			pr.Update(float64(i)/float64(len(jobs)), j.quantity)
-			r, err := expansion.Resum(j.quantity, q, max(j.n, 0), reportFlags.order, workDigits())
+			r, err := conformal.Resum(j.quantity, q, max(j.n, 0), reportFlags.order, workDigits())
 			if err != nil {
 				pr.Done()
 				return err
 			}
-			row := reportRow{Quantity: r.Quantity, Exact: r.Exact.Value, ExactErr: r.Exact.Err, ExactKind: "exact", Estimates: map[string]expansion.Estimate{}}
+			row := reportRow{Quantity: r.Quantity, Exact: r.Exact.Value, ExactErr: r.Exact.Err, ExactKind: "exact", Estimates: map[string]conformal.Estimate{}}
 			for _, e := range r.Estimates {
 				row.Estimates[e.Method] = e
 			}
 			switch j.quantity {
-			case expansion.QuantityDims:
-				if p, ok := expansion.PublishedDimension(q, j.n); ok {
+			case conformal.QuantityDims:
+				if p, ok := conformal.PublishedDimension(q, j.n); ok {
 					row.Published = &p
 				}
-			case expansion.QuantityS0:
-				p := expansion.PublishedS0(q)
+			case conformal.QuantityS0:
+				p := conformal.PublishedS0(q)
 				row.Published = &p
 			}
 			rows = append(rows, row)
@@ -102,7 +102,7 @@ from the exact value. Errors and methods are in the JSON output and the notes.`,
 	},
 }
 
-func reportOutput(q expansion.QPoint, rows []reportRow) *Output {
+func reportOutput(q conformal.QPoint, rows []reportRow) *Output {
 	d := opts.Digits
 	header := []string{"quantity", "reference", "kind"}
 	for _, c := range reportColumns {

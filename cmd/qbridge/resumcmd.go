@@ -5,12 +5,12 @@ import (
 
 	"github.com/spf13/cobra"
 
-	"qbridge/expansion"
+	"qbridge/expansion/conformal"
 )
 
 // resumProvider resums a quantity that lives outside the conformal-data
 // code; files that add one register it in resumProviders from init().
-type resumProvider func(cmd *cobra.Command, q expansion.QPoint, order int) (*Output, error)
+type resumProvider func(cmd *cobra.Command, q conformal.QPoint, order int) (*Output, error)
 
 var resumProviders = map[string]resumProvider{}
 
@@ -39,8 +39,8 @@ b is resummed through b^q, which is analytic at both ends.`,
 		if q.Inf {
 			return usageErr("resum needs a finite q (the series around inf is exact there)")
 		}
-		if resumFlags.order < 2 || resumFlags.order > expansion.MaxOrder {
-			return usageErr("--order must be between 2 and %d (got %d)", expansion.MaxOrder, resumFlags.order)
+		if resumFlags.order < 2 || resumFlags.order > conformal.MaxOrder {
+			return usageErr("--order must be between 2 and %d (got %d)", conformal.MaxOrder, resumFlags.order)
 		}
 		if len(args) == 1 {
 			if p, ok := resumProviders[args[0]]; ok {
@@ -55,12 +55,12 @@ b is resummed through b^q, which is analytic at both ends.`,
 		if err != nil {
 			return err
 		}
-		if resumFlags.n < 0 || resumFlags.n > expansion.MaxN {
-			return usageErr("--n must be between 0 and %d (got %d)", expansion.MaxN, resumFlags.n)
+		if resumFlags.n < 0 || resumFlags.n > conformal.MaxN {
+			return usageErr("--n must be between 0 and %d (got %d)", conformal.MaxN, resumFlags.n)
 		}
 		pr := newProgress(cmd, "resummation")
 		pr.Update(0, quantity)
-		r, err := expansion.Resum(quantity, q, resumFlags.n, resumFlags.order, workDigits())
+		r, err := conformal.Resum(quantity, q, resumFlags.n, resumFlags.order, workDigits())
 		pr.Done()
 		if err != nil {
 			return err
@@ -69,7 +69,7 @@ b is resummed through b^q, which is analytic at both ends.`,
 	},
 }
 
-func resumOutput(r *expansion.Resummation) *Output {
+func resumOutput(r *conformal.Resummation) *Output {
 	tab := Table{
 		Title:  fmt.Sprintf("%s at q = %s from series of order %d", r.Quantity, r.Q, r.Order),
 		Header: []string{"method", "value", "error", "minus exact"},
@@ -109,7 +109,7 @@ func resumOutput(r *expansion.Resummation) *Output {
 func init() {
 	f := resumCmd.Flags()
 	f.StringVar(&resumFlags.q, "q", "4", "interaction order q (real >= 2)")
-	f.IntVar(&resumFlags.order, "order", 16, fmt.Sprintf("order of the series at each end (2..%d)", expansion.MaxOrder))
+	f.IntVar(&resumFlags.order, "order", 16, fmt.Sprintf("order of the series at each end (2..%d)", conformal.MaxOrder))
 	f.IntVar(&resumFlags.n, "n", 1, "dimension index n (dims only)")
 	rootCmd.AddCommand(resumCmd)
 }

@@ -6,13 +6,13 @@ import (
 
 	"github.com/spf13/cobra"
 
-	"qbridge/expansion"
+	"qbridge/expansion/conformal"
 )
 
 // seriesProvider prints the series of a quantity that lives outside the
 // conformal-data code (energy, soft mode, log Z). Files that add such
 // quantities register them in seriesProviders from their init().
-type seriesProvider func(cmd *cobra.Command, end expansion.End, order int) (*Output, error)
+type seriesProvider func(cmd *cobra.Command, end conformal.End, order int) (*Output, error)
 
 // seriesProviders maps extra quantity names to their providers.
 var seriesProviders = map[string]seriesProvider{}
@@ -27,12 +27,12 @@ var seriesFlags struct {
 	closedForm bool
 }
 
-func parseEnd(text string) (expansion.End, error) {
+func parseEnd(text string) (conformal.End, error) {
 	switch text {
 	case "2":
-		return expansion.AroundTwo, nil
+		return conformal.AroundTwo, nil
 	case "inf":
-		return expansion.AroundInf, nil
+		return conformal.AroundInf, nil
 	}
 	return 0, usageErr("--around must be 2 or inf (got %q)", text)
 }
@@ -58,8 +58,8 @@ a form is printed only when it holds on 10 digits beyond those used to find it.`
 		if err != nil {
 			return err
 		}
-		if seriesFlags.order < 0 || seriesFlags.order > expansion.MaxOrder {
-			return usageErr("--order must be between 0 and %d (got %d)", expansion.MaxOrder, seriesFlags.order)
+		if seriesFlags.order < 0 || seriesFlags.order > conformal.MaxOrder {
+			return usageErr("--order must be between 0 and %d (got %d)", conformal.MaxOrder, seriesFlags.order)
 		}
 		if len(args) == 1 {
 			if p, ok := seriesProviders[args[0]]; ok {
@@ -74,8 +74,8 @@ a form is printed only when it holds on 10 digits beyond those used to find it.`
 		if err != nil {
 			return err
 		}
-		if seriesFlags.n < 0 || seriesFlags.n > expansion.MaxN {
-			return usageErr("--n must be between 0 and %d (got %d)", expansion.MaxN, seriesFlags.n)
+		if seriesFlags.n < 0 || seriesFlags.n > conformal.MaxN {
+			return usageErr("--n must be between 0 and %d (got %d)", conformal.MaxN, seriesFlags.n)
 		}
 		digits := workDigits()
 		if seriesFlags.closedForm && digits < closedFormDigits {
@@ -83,30 +83,30 @@ a form is printed only when it holds on 10 digits beyond those used to find it.`
 		}
 		pr := newProgress(cmd, "series")
 		pr.Update(0, quantity)
-		var cs []*expansion.Coefficients
+		var cs []*conformal.Coefficients
 		switch quantity {
-		case expansion.QuantityDims:
-			c, err := expansion.DimensionSeries(end, seriesFlags.n, seriesFlags.order, digits)
+		case conformal.QuantityDims:
+			c, err := conformal.DimensionSeries(end, seriesFlags.n, seriesFlags.order, digits)
 			if err != nil {
 				pr.Done()
 				return err
 			}
 			cs = append(cs, c)
-		case expansion.QuantityB:
-			cs, err = expansion.BSeries(end, seriesFlags.order, digits)
-		case expansion.QuantityS0:
-			var c *expansion.Coefficients
-			c, err = expansion.S0Series(end, seriesFlags.order, digits)
+		case conformal.QuantityB:
+			cs, err = conformal.BSeries(end, seriesFlags.order, digits)
+		case conformal.QuantityS0:
+			var c *conformal.Coefficients
+			c, err = conformal.S0Series(end, seriesFlags.order, digits)
 			cs = append(cs, c)
 		}
 		pr.Done()
 		if err != nil {
 			return err
 		}
-		var forms [][]*expansion.ClosedForm
+		var forms [][]*conformal.ClosedForm
 		if seriesFlags.closedForm {
 			for _, c := range cs {
-				f, err := expansion.IdentifyCoefficients(c)
+				f, err := conformal.IdentifyCoefficients(c)
 				if err != nil {
 					return err
 				}
@@ -117,7 +117,7 @@ a form is printed only when it holds on 10 digits beyond those used to find it.`
 	},
 }
 
-func seriesOutput(quantity string, end expansion.End, cs []*expansion.Coefficients, forms [][]*expansion.ClosedForm) *Output {
+func seriesOutput(quantity string, end conformal.End, cs []*conformal.Coefficients, forms [][]*conformal.ClosedForm) *Output {
 	out := &Output{}
 	var jsList []map[string]any
 	for i, c := range cs {
@@ -176,11 +176,11 @@ func seriesOutput(quantity string, end expansion.End, cs []*expansion.Coefficien
 			out.Notes = append(out.Notes, fmt.Sprintf("%s: too few reliable coefficients for a radius estimate", c.Quantity))
 		}
 	}
-	if quantity == expansion.QuantityB && end == expansion.AroundInf {
+	if quantity == conformal.QuantityB && end == conformal.AroundInf {
 		out.Notes = append(out.Notes, "b is not a power series in x = 1/q: log b = x log x + x R(x); printed are b^q and R(x) = log(b)/x - log(x)")
 	}
 	if forms != nil {
-		out.Notes = append(out.Notes, "closed forms: "+expansion.ClosedFormBasisDoc)
+		out.Notes = append(out.Notes, "closed forms: "+conformal.ClosedFormBasisDoc)
 	}
 	// The first series is the main one; further analytic companions (b
 	// around infinity) ride along under "also".
@@ -194,7 +194,7 @@ func seriesOutput(quantity string, end expansion.End, cs []*expansion.Coefficien
 func init() {
 	f := seriesCmd.Flags()
 	f.StringVar(&seriesFlags.around, "around", "2", "expansion point: 2 (variable eps = 1 - 2/q) or inf (variable x = 1/q)")
-	f.IntVar(&seriesFlags.order, "order", 12, fmt.Sprintf("highest power kept (0..%d)", expansion.MaxOrder))
+	f.IntVar(&seriesFlags.order, "order", 12, fmt.Sprintf("highest power kept (0..%d)", conformal.MaxOrder))
 	f.IntVar(&seriesFlags.n, "n", 1, "dimension index n (dims only)")
 	f.BoolVar(&seriesFlags.closedForm, "closed-form", false, "identify closed forms of the coefficients by PSLQ")
 	rootCmd.AddCommand(seriesCmd)

@@ -4,7 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"qbridge/expansion"
+	"qbridge/expansion/conformal"
 
 	"qbridge/series"
 )
@@ -53,7 +53,7 @@ type DeltaParams struct {
 	Levels int
 	// Variable is VarDelta (the default when empty) or VarEps: with VarEps
 	// every grid's series is converted to eps = 1 - 2/q by the exact
-	// substitution delta = 2 eps/(1 - eps) (expansion.DeltaToEps) before the
+	// substitution delta = 2 eps/(1 - eps) (conformal.DeltaToEps) before the
 	// Richardson extrapolation, so the error bars are those of the
 	// eps-coefficients themselves.
 	Variable string
@@ -133,10 +133,10 @@ func DeltaExpand(p DeltaParams) (*FiniteBeta, error) {
 			return nil, err
 		}
 		if p.Variable == VarEps {
-			if lv.logZ, err = substitute(lv.logZ, expansion.DeltaToEps); err != nil {
+			if lv.logZ, err = substitute(lv.logZ, conformal.DeltaToEps); err != nil {
 				return nil, err
 			}
-			if lv.e, err = substitute(lv.e, expansion.DeltaToEps); err != nil {
+			if lv.e, err = substitute(lv.e, conformal.DeltaToEps); err != nil {
 				return nil, err
 			}
 		}

@@ -3,7 +3,7 @@ package energy
 import (
 	"fmt"
 
-	"qbridge/expansion"
+	"qbridge/expansion/conformal"
 	"qbridge/series"
 )
 
@@ -15,7 +15,7 @@ func ExactS0Eps(order int, prec uint) (*series.Series, error) {
 	if order < 0 {
 		return nil, fmt.Errorf("%w: order must be >= 0, got %d", ErrInput, order)
 	}
-	return expansion.S0Taylor(expansion.AroundTwo, order, prec)
+	return conformal.S0Taylor(conformal.AroundTwo, order, prec)
 }
 
 // ExactS0InvQ returns the exact zero-temperature entropy as a series in
@@ -26,7 +26,7 @@ func ExactS0InvQ(order int, prec uint) (*series.Series, error) {
 	if order < 0 {
 		return nil, fmt.Errorf("%w: order must be >= 0, got %d", ErrInput, order)
 	}
-	return expansion.S0Taylor(expansion.AroundInf, order, prec)
+	return conformal.S0Taylor(conformal.AroundInf, order, prec)
 }
 
 // ExactS0Delta returns ExactS0Eps converted to delta = q - 2.
@@ -35,5 +35,5 @@ func ExactS0Delta(order int, prec uint) (*series.Series, error) {
 	if err != nil {
 		return nil, err
 	}
-	return expansion.EpsToDelta(s)
+	return conformal.EpsToDelta(s)
 }

@@ -1,4 +1,4 @@
-package expansion
+package conformal
 
 import (
 	"encoding/json"
@@ -37,7 +37,7 @@ type conformalGolden struct {
 
 func loadConformalGolden(t *testing.T) *conformalGolden {
 	t.Helper()
-	raw, err := os.ReadFile("../testdata/conformal_golden.json")
+	raw, err := os.ReadFile("../../testdata/conformal_golden.json")
 	if err != nil {
 		t.Fatalf("golden file: %v (regenerate with python3 testdata/gen_conformal.py > testdata/conformal_golden.json)", err)
 	}

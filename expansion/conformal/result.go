@@ -1,4 +1,4 @@
-package expansion
+package conformal
 
 import (
 	"math/big"
