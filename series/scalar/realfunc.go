@@ -93,6 +93,18 @@ func atanhSeries(z *big.Float, prec uint) *big.Float {
 	}
 }
 
+// BigExp, BigLog and BigPow are this package's own code and stay on the hot
+// path (the root finders and the Gamma functions call them in their inner
+// loops). github.com/ALTree/bigfloat is kept only as their test reference
+// (bigfloat_ref_test.go), where they agree with it to within 0.5 ulp at 30
+// to 200 digits. Measured with go test -bench 'Own|Bigfloat' -benchtime
+// 200x on the 2-core test machine, at 100 digits for x = 3.14159...: exp
+// 23-38 us own vs 370-480 us bigfloat (Newton on its log), log 37-57 us vs
+// 122-137 us (AGM), pow(x, 2.5) 100-127 us vs 520-610 us; at 300 digits exp
+// 74-104 us vs 1.07-1.14 ms, log 164-214 us vs 217-252 us, pow 211-253 us
+// vs 1.08-1.42 ms. bigfloat also panics on bad arguments where these return
+// ErrDomain, and updates its pi cache above 1024 bits without a lock.
+
 // BigExp returns e^x at prec bits: x = n log 2 + r, e^r from its Taylor
 // series at r/2^h, squared h times.
 func BigExp(x *big.Float, prec uint) *big.Float {
@@ -135,7 +147,8 @@ func BigExp(x *big.Float, prec uint) *big.Float {
 // ErrDomain is returned when a function is asked for a value outside its domain.
 var ErrDomain = errors.New("series: argument outside the function's domain")
 
-// BigLog returns log x at prec bits; x must be positive. With x = m 2^e,
+// BigLog returns log x at prec bits; x must be positive (see the note above
+// BigExp for its timing against the bigfloat test reference). With x = m 2^e,
 // m in [1/2, 1), log x = e log 2 + 2^(k+1) atanh((r-1)/(r+1)) where
 // r = m^(1/2^k) is brought close to 1 by k square roots.
 func BigLog(x *big.Float, prec uint) (*big.Float, error) {
@@ -149,20 +162,28 @@ func BigLog(x *big.Float, prec uint) (*big.Float, error) {
 	p := prec + Guard + uint(k)
 	m := new(big.Float).SetPrec(p)
 	e := 0
+	roots := k
 	if x.Cmp(big.NewFloat(0.5)) >= 0 && x.Cmp(big.NewFloat(2)) < 0 {
 		m.Set(x) // near 1: no exponent split, so log x keeps its relative accuracy
+		// Each square root of m = 1 + d rounds at 2^-p absolutely, which
+		// costs relative accuracy of d; so when |d| < 2^-j already, take only
+		// the k-j roots needed to bring it below 2^-k.
+		d := new(big.Float).SetPrec(p).Sub(x, big.NewFloat(1))
+		if j := -d.MantExp(nil); d.Sign() != 0 && j > 0 {
+			roots = max(k-j, 0)
+		}
 	} else {
 		e = x.MantExp(m)
 		m.SetPrec(p) // MantExp gives m the precision of x
 	}
-	for i := 0; i < k; i++ {
+	for i := 0; i < roots; i++ {
 		m.Sqrt(m)
 	}
 	num := new(big.Float).SetPrec(p).Sub(m, big.NewFloat(1))
 	den := new(big.Float).SetPrec(p).Add(m, big.NewFloat(1))
 	z := num.Quo(num, den)
 	l := atanhSeries(z, p)
-	l.SetMantExp(l, k+1)
+	l.SetMantExp(l, roots+1)
 	if e != 0 {
 		t := Ln2(p)
 		t.Mul(t, new(big.Float).SetInt64(int64(e)))
