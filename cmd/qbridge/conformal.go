@@ -3,10 +3,10 @@ package main
 import (
 	"fmt"
 	"math/big"
-	"strconv"
 
 	"github.com/spf13/cobra"
 
+	"qbridge/expansion"
 	"qbridge/expansion/conformal"
 )
 
@@ -21,17 +21,6 @@ func workDigits() int {
 		d = conformal.MaxDigits
 	}
 	return d
-}
-
-func checkQuantity(args []string) (string, error) {
-	if len(args) != 1 {
-		return "", usageErr("name one quantity: dims, b or s0")
-	}
-	switch args[0] {
-	case conformal.QuantityDims, conformal.QuantityB, conformal.QuantityS0:
-		return args[0], nil
-	}
-	return "", usageErr("unknown quantity %q: known are dims, b, s0", args[0])
 }
 
 func parseQFlag(text string) (conformal.QPoint, error) {
@@ -67,61 +56,45 @@ var exactFlags struct {
 }
 
 var exactCmd = &cobra.Command{
-	Use:   "exact dims|b|s0",
+	Use:   "exact QUANTITY",
 	Short: "Exact conformal data at one q: dimensions h_n, coefficient b, entropy S_0",
 	Long: `Evaluate a conformal quantity at one value of q from its exact definition:
-  dims  operator dimensions h_n, the solutions of k_A(h) = 1 (h_0 = 2 is the soft mode)
-  b     the coefficient of the conformal two-point function, b^q pi = (1/2 - 1/q) tan(pi/q)
-  s0    the zero-temperature entropy per Majorana fermion
+  h_n (dims)  operator dimensions, the solutions of k_A(h) = 1 (h_0 = 2 is the soft mode);
+              h_3 names one, h_n with --n a list or range
+  b           the coefficient of the conformal two-point function, b^q pi = (1/2 - 1/q) tan(pi/q)
+  S_0 (s0)    the zero-temperature entropy per Majorana fermion
 q may be any real number >= 2 or inf. Each value carries an error estimate
 from two working precisions.`,
 	Example: `  qbridge exact dims --q 4 --n 0..10 --digits 30
   qbridge exact s0 --q 4 --format json`,
 	Args: cobra.ArbitraryArgs,
 	RunE: func(cmd *cobra.Command, args []string) error {
-		quantity, err := checkQuantity(args)
+		nGiven := cmd.Flags().Changed("n")
+		p, ns, err := quantityArg(args, exactFlags.n, nGiven)
 		if err != nil {
 			return err
+		}
+		ep, ok := p.(expansion.ExactProvider)
+		if !ok {
+			return usageErr("%s has no exact value at finite q: use qbridge resum %s (resummed, beside the direct solver) or qbridge ground", p.Quantity().Name, args[0])
 		}
 		q, err := parseQFlag(exactFlags.q)
 		if err != nil {
 			return err
 		}
 		var vals []*conformal.Value
-		switch quantity {
-		case conformal.QuantityDims:
-			lo, hi, err := parseNRange(exactFlags.n)
+		pr := newProgress(cmd, "exact")
+		for i, n := range ns {
+			pr.Update(float64(i)/float64(len(ns)), p.Quantity().Named(n))
+			v, err := ep.Exact(q, expansion.Request{N: n, Digits: workDigits()})
 			if err != nil {
-				return err
-			}
-			if hi > conformal.MaxN {
-				return usageErr("--n goes up to %d (got %d)", conformal.MaxN, hi)
-			}
-			pr := newProgress(cmd, "dimensions")
-			for n := lo; n <= hi; n++ {
-				pr.Update(float64(n-lo)/float64(hi-lo+1), "h_"+strconv.Itoa(n))
-				v, err := conformal.Dimension(q, n, workDigits())
-				if err != nil {
-					pr.Done()
-					return err
-				}
-				vals = append(vals, v)
-			}
-			pr.Done()
-		case conformal.QuantityB:
-			v, err := conformal.B(q, workDigits())
-			if err != nil {
-				return err
-			}
-			vals = append(vals, v)
-		case conformal.QuantityS0:
-			v, err := conformal.S0(q, workDigits())
-			if err != nil {
-				return err
+				pr.Done()
+				return libErr(err)
 			}
 			vals = append(vals, v)
 		}
-		return emit(cmd, exactOutput(quantity, q, vals))
+		pr.Done()
+		return emit(cmd, exactOutput(args[0], q, vals))
 	},
 }
 
@@ -148,6 +121,6 @@ func exactOutput(quantity string, q conformal.QPoint, vals []*conformal.Value) *
 func init() {
 	f := exactCmd.Flags()
 	f.StringVar(&exactFlags.q, "q", "4", "interaction order q (real >= 2, or inf)")
-	f.StringVar(&exactFlags.n, "n", "0..6", "dimension index n, or an inclusive range such as 0..20 (dims only)")
+	f.StringVar(&exactFlags.n, "n", "0..6", "dimension indices for h_n: a number, a list 1,3 or a range 0..20")
 	rootCmd.AddCommand(exactCmd)
 }

@@ -6,6 +6,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"qbridge/expansion"
 	"qbridge/expansion/conformal"
 )
 
@@ -15,34 +16,28 @@ var reportFlags struct {
 }
 
 // reportRow is one line of the report: a quantity with every route to it.
-// Exact is the reference value the differences are taken from: the exact
-// value where one exists, otherwise the direct solver's (ExactKind says which).
 type reportRow struct {
-	Quantity  string
-	Exact     *big.Float
-	ExactErr  *big.Float
-	ExactKind string
-	// Estimates by column name (see reportColumns).
+	r *expansion.Resummation
+	// Estimates by method name.
 	Estimates map[string]conformal.Estimate
-	Published *conformal.Published
 }
 
-// reportRowProvider adds rows to the report; files that add quantities
-// register one in reportRowProviders from their init().
-type reportRowProvider func(cmd *cobra.Command, q conformal.QPoint, order int) ([]reportRow, error)
+// reportColumns are the resummations the report shows.
+var reportColumns = []string{expansion.MethodPadeEps, expansion.MethodPadeX, expansion.MethodTwoPoint}
 
-var reportRowProviders []reportRowProvider
-
-var reportColumns = []string{"eps Pade", "1/q Pade", "two-point Pade"}
+// reportQuantities are the rows of the report, in order.
+var reportQuantities = []string{"h_1", "h_2", "h_3", "h_4", "h_5", "h_6", expansion.B, expansion.S0, expansion.E0, expansion.AlphaS}
 
 var reportCmd = &cobra.Command{
 	Use:   "report",
 	Short: "One table of everything qbridge knows at one q (default q = 4)",
-	Long: `The main job: at one q, for the dimensions h_1..h_6, the coefficient b and the
-entropy S_0, print the exact value, the values resummed from the eps-series
+	Long: `The main job: at one q, for the dimensions h_1..h_6, the coefficient b, the
+entropy S_0, the ground-state energy E_0 and the Schwarzian coefficient
+alpha_S, print the reference value (exact where an exact value exists, else
+the direct Schwinger-Dyson solver's), the values resummed from the eps-series
 (around q = 2), from the 1/q-series (around q = infinity) and by the two-point
 Pade that uses both, the published value with its source, and the differences
-from the exact value. Errors and methods are in the JSON output and the notes.`,
+from the reference. Errors and methods are in the JSON output and the notes.`,
 	Example: `  qbridge report
   qbridge report --q 6 --format tex`,
 	Args: cobra.NoArgs,
@@ -57,47 +52,26 @@ from the exact value. Errors and methods are in the JSON output and the notes.`,
 		if reportFlags.order < 2 || reportFlags.order > conformal.MaxOrder {
 			return usageErr("--order must be between 2 and %d (got %d)", conformal.MaxOrder, reportFlags.order)
 		}
-		type job struct {
-			quantity string
-			n        int
-		}
-		var jobs []job
-		for n := 1; n <= 6; n++ {
-			jobs = append(jobs, job{conformal.QuantityDims, n})
-		}
-		jobs = append(jobs, job{conformal.QuantityB, -1}, job{conformal.QuantityS0, -1})
 		pr := newProgress(cmd, "report")
+		defer pr.Done()
 		var rows []reportRow
-		for i, j := range jobs {
-			pr.Update(float64(i)/float64(len(jobs)), j.quantity)
-			r, err := conformal.Resum(j.quantity, q, max(j.n, 0), reportFlags.order, workDigits())
+		for i, name := range reportQuantities {
+			pr.Update(float64(i)/float64(len(reportQuantities)), name)
+			p, n, err := expansion.ParseName(name)
 			if err != nil {
-				pr.Done()
 				return err
 			}
-			row := reportRow{Quantity: r.Quantity, Exact: r.Exact.Value, ExactErr: r.Exact.Err, ExactKind: "exact", Estimates: map[string]conformal.Estimate{}}
+			r, err := p.Resum(q, expansion.Request{N: n, Order: reportFlags.order, Digits: workDigits()})
+			if err != nil {
+				return libErr(err)
+			}
+			row := reportRow{r: r, Estimates: map[string]conformal.Estimate{}}
 			for _, e := range r.Estimates {
 				row.Estimates[e.Method] = e
-			}
-			switch j.quantity {
-			case conformal.QuantityDims:
-				if p, ok := conformal.PublishedDimension(q, j.n); ok {
-					row.Published = &p
-				}
-			case conformal.QuantityS0:
-				p := conformal.PublishedS0(q)
-				row.Published = &p
 			}
 			rows = append(rows, row)
 		}
 		pr.Done()
-		for _, p := range reportRowProviders {
-			more, err := p(cmd, q, reportFlags.order)
-			if err != nil {
-				return err
-			}
-			rows = append(rows, more...)
-		}
 		return emit(cmd, reportOutput(q, rows))
 	},
 }
@@ -112,20 +86,21 @@ func reportOutput(q conformal.QPoint, rows []reportRow) *Output {
 	tab := Table{Title: fmt.Sprintf("qbridge report at q = %s (script-J = 1)", q), Header: header}
 	var jrows []map[string]any
 	for _, r := range rows {
-		cells := []string{r.Quantity, fmtBig(r.Exact, d), r.ExactKind}
-		jr := map[string]any{"quantity": r.Quantity, "reference": fmtBig(r.Exact, d), "reference_error": fmtErr(r.ExactErr), "reference_kind": r.ExactKind}
+		ref := r.r.Reference
+		cells := []string{r.r.Name, fmtBig(ref.Value, refDigits(ref)), ref.Kind}
+		jr := map[string]any{"quantity": r.r.Name, "reference": fmtBig(ref.Value, refDigits(ref)), "reference_error": fmtErr(ref.Err), "reference_kind": ref.Kind}
 		for _, c := range reportColumns {
 			e, ok := r.Estimates[c]
 			if !ok || e.Value == nil {
 				cells = append(cells, "failed", "")
 				continue
 			}
-			diff := new(big.Float).Sub(e.Value, r.Exact)
+			diff := new(big.Float).Sub(e.Value, ref.Value)
 			cells = append(cells, fmtBig(e.Value, d), fmtBig(diff, 2))
 			jr[c] = map[string]string{"value": fmtBig(e.Value, d), "error": fmtErr(e.Err), "difference": fmtBig(diff, 3)}
 		}
-		if p := r.Published; p != nil {
-			diff := new(big.Float).Sub(p.Value, r.Exact)
+		if p := r.r.Published; p != nil {
+			diff := new(big.Float).Sub(p.Value, ref.Value)
 			pd := d
 			if p.Digits > 0 {
 				pd = p.Digits

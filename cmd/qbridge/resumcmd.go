@@ -5,31 +5,30 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"qbridge/expansion"
 	"qbridge/expansion/conformal"
 )
-
-// resumProvider resums a quantity that lives outside the conformal-data
-// code; files that add one register it in resumProviders from init().
-type resumProvider func(cmd *cobra.Command, q conformal.QPoint, order int) (*Output, error)
-
-var resumProviders = map[string]resumProvider{}
 
 var resumFlags struct {
 	q     string
 	order int
-	n     int
+	n     string
 }
 
 var resumCmd = &cobra.Command{
-	Use:   "resum dims|b|s0",
-	Short: "Resum the series from both ends at one q and compare with the exact value",
-	Long: `Evaluate a conformal quantity at one q from its series around q = 2 and
-q = infinity: partial sums and the best Pade-table entry from each end, and the
-two-point Pade that matches both ends. Each estimate carries an error estimate
-and is printed beside the exact value and its difference from it.
-b is resummed through b^q, which is analytic at both ends.`,
-	Example: `  qbridge resum dims --q 4 --n 1 --order 20
-  qbridge resum s0 --q 3 --format json`,
+	Use:   "resum QUANTITY",
+	Short: "Resum the series from both ends at one q and compare with the exact or direct value",
+	Long: `Evaluate a quantity at one q from its series around q = 2 and q = infinity, by
+the methods in one fixed order: eps partial sum, eps Pade (best pole-free entry
+of the Pade table), 1/q partial sum, 1/q Pade, and the two-point Pade that
+matches both ends. Each estimate carries an error estimate and is printed
+beside the reference value (exact for h_n, b, S_0; the direct Schwinger-Dyson
+solver for E_0 and alpha_S) and its difference from it.
+Quantities: h_1, h_2, ... (or h_n with --n; alias dims), b, S_0 (s0),
+E_0 (e0), alpha_S (alpha). b is resummed through b^q, analytic at both ends.`,
+	Example: `  qbridge resum h_1 --q 4 --order 20
+  qbridge resum s0 --q 3 --format json
+  qbridge resum alpha_S --q 6`,
 	Args: cobra.ArbitraryArgs,
 	RunE: func(cmd *cobra.Command, args []string) error {
 		q, err := parseQFlag(resumFlags.q)
@@ -42,41 +41,53 @@ b is resummed through b^q, which is analytic at both ends.`,
 		if resumFlags.order < 2 || resumFlags.order > conformal.MaxOrder {
 			return usageErr("--order must be between 2 and %d (got %d)", conformal.MaxOrder, resumFlags.order)
 		}
-		if len(args) == 1 {
-			if p, ok := resumProviders[args[0]]; ok {
-				out, err := p(cmd, q, resumFlags.order)
-				if err != nil {
-					return err
-				}
-				return emit(cmd, out)
-			}
-		}
-		quantity, err := checkQuantity(args)
+		p, ns, err := quantityArg(args, resumFlags.n, cmd.Flags().Changed("n"))
 		if err != nil {
 			return err
-		}
-		if resumFlags.n < 0 || resumFlags.n > conformal.MaxN {
-			return usageErr("--n must be between 0 and %d (got %d)", conformal.MaxN, resumFlags.n)
 		}
 		pr := newProgress(cmd, "resummation")
-		pr.Update(0, quantity)
-		r, err := conformal.Resum(quantity, q, resumFlags.n, resumFlags.order, workDigits())
-		pr.Done()
-		if err != nil {
-			return err
+		defer pr.Done()
+		var rs []*expansion.Resummation
+		for _, n := range ns {
+			pr.Update(0, p.Quantity().Named(n))
+			r, err := p.Resum(q, expansion.Request{N: n, Order: resumFlags.order, Digits: workDigits(), Progress: pr.Update})
+			if err != nil {
+				return libErr(err)
+			}
+			rs = append(rs, r)
 		}
-		return emit(cmd, resumOutput(r))
+		pr.Done()
+		return emit(cmd, resumOutput(rs))
 	},
 }
 
-func resumOutput(r *conformal.Resummation) *Output {
-	tab := Table{
-		Title:  fmt.Sprintf("%s at q = %s from series of order %d", r.Quantity, r.Q, r.Order),
-		Header: []string{"method", "value", "error", "minus exact"},
+func resumOutput(rs []*expansion.Resummation) *Output {
+	out := &Output{}
+	var docs []map[string]any
+	for _, r := range rs {
+		tab, js, notes := resumTable(r)
+		out.Tables = append(out.Tables, tab)
+		out.Notes = append(out.Notes, notes...)
+		docs = append(docs, js)
 	}
-	tab.Rows = append(tab.Rows, []string{"exact", fmtBig(r.Exact.Value, opts.Digits), fmtErr(r.Exact.Err), ""})
+	out.Notes = append(out.Notes, "units: script-J = 1")
+	if len(docs) == 1 {
+		out.JSON = docs[0]
+	} else {
+		out.JSON = docs
+	}
+	return out
+}
+
+func resumTable(r *expansion.Resummation) (Table, map[string]any, []string) {
+	ref := r.Reference
+	tab := Table{
+		Title:  fmt.Sprintf("%s at q = %s from series of order %d (eps) and %d (1/q)", r.Name, r.Q, r.OrderEps, r.OrderX),
+		Header: []string{"method", "value", "error", "minus " + ref.Kind},
+	}
+	tab.Rows = append(tab.Rows, []string{ref.Kind, fmtBig(ref.Value, refDigits(ref)), fmtErr(ref.Err), ""})
 	var methods, values, errs, diffs []string
-	notes := []string{"exact: " + r.Exact.Method}
+	notes := []string{r.Name + " " + ref.Kind + ": " + ref.Method}
 	for _, e := range r.Estimates {
 		v, er, d := "failed", "", ""
 		if e.Value != nil {
@@ -87,29 +98,42 @@ func resumOutput(r *conformal.Resummation) *Output {
 		values = append(values, v)
 		errs = append(errs, er)
 		diffs = append(diffs, d)
-		notes = append(notes, e.Method+": "+e.Detail)
+		notes = append(notes, r.Name+" "+e.Method+": "+e.Detail)
 	}
+	notes = append(notes, r.Notes...)
 	js := map[string]any{
-		"quantity":    r.Quantity,
-		"q":           jsonQ(r.Q),
-		"order":       r.Order,
-		"methods":     methods,
-		"values":      values,
-		"errors":      errs,
-		"differences": diffs,
-		"exact":       fmtBig(r.Exact.Value, opts.Digits),
-		"exact_error": fmtErr(r.Exact.Err),
+		"quantity":        r.Name,
+		"q":               jsonQ(r.Q),
+		"order":           r.OrderEps,
+		"order_eps":       r.OrderEps,
+		"order_x":         r.OrderX,
+		"methods":         methods,
+		"values":          values,
+		"errors":          errs,
+		"differences":     diffs,
+		"reference":       fmtBig(ref.Value, refDigits(ref)),
+		"reference_error": fmtErr(ref.Err),
+		"reference_kind":  ref.Kind,
 	}
-	if r.N >= 0 {
-		js["n"] = r.N
+	if ref.Kind == "exact" {
+		js["exact"], js["exact_error"] = js["reference"], js["reference_error"]
 	}
-	return &Output{JSON: js, Tables: []Table{tab}, Notes: notes}
+	return tab, js, notes
+}
+
+// refDigits caps the printed digits of a float64 reference (the direct
+// solver) at what float64 holds.
+func refDigits(ref *expansion.Reference) int {
+	if ref.Kind == "direct" {
+		return min(opts.Digits, 15)
+	}
+	return opts.Digits
 }
 
 func init() {
 	f := resumCmd.Flags()
 	f.StringVar(&resumFlags.q, "q", "4", "interaction order q (real >= 2)")
-	f.IntVar(&resumFlags.order, "order", 16, fmt.Sprintf("order of the series at each end (2..%d)", conformal.MaxOrder))
-	f.IntVar(&resumFlags.n, "n", 1, "dimension index n (dims only)")
+	f.IntVar(&resumFlags.order, "order", 16, fmt.Sprintf("order of the series at each end (2..%d; E_0 and alpha_S use at most 10 around 2 and 8 around inf)", conformal.MaxOrder))
+	f.StringVar(&resumFlags.n, "n", "1", "dimension index for h_n: a number, a list 1,3 or a range 1..6")
 	rootCmd.AddCommand(resumCmd)
 }

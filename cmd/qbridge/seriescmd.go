@@ -2,20 +2,14 @@ package main
 
 import (
 	"fmt"
+	"math/big"
 	"strconv"
 
 	"github.com/spf13/cobra"
 
+	"qbridge/expansion"
 	"qbridge/expansion/conformal"
 )
-
-// seriesProvider prints the series of a quantity that lives outside the
-// conformal-data code (energy, soft mode, log Z). Files that add such
-// quantities register them in seriesProviders from their init().
-type seriesProvider func(cmd *cobra.Command, end conformal.End, order int) (*Output, error)
-
-// seriesProviders maps extra quantity names to their providers.
-var seriesProviders = map[string]seriesProvider{}
 
 // closedFormDigits is the working precision for --closed-form.
 const closedFormDigits = 80
@@ -23,8 +17,9 @@ const closedFormDigits = 80
 var seriesFlags struct {
 	around     string
 	order      int
-	n          int
+	n          string
 	closedForm bool
+	beta       float64
 }
 
 func parseEnd(text string) (conformal.End, error) {
@@ -38,20 +33,25 @@ func parseEnd(text string) (conformal.End, error) {
 }
 
 var seriesCmd = &cobra.Command{
-	Use:   "series dims|b|s0",
+	Use:   "series QUANTITY",
 	Short: "Taylor coefficients around q = 2 (in eps = 1 - 2/q) or q = infinity (in x = 1/q)",
-	Long: `Print the Taylor coefficients of a conformal quantity around one end of the q axis,
-each with an error estimate (two working precisions) and an estimate of the
-radius of convergence:
+	Long: `Print the Taylor coefficients of a quantity around one end of the q axis,
+each with an error estimate and, where the coefficients allow, an estimate of
+the radius of convergence:
   --around 2    coefficients in eps = 1 - 2/q (q = 2 is eps = 0, q = 4 is eps = 1/2)
   --around inf  coefficients in x = 1/q
+Quantities: h_1, h_2, ... (or h_n with --n 1,3 or --n 1..6; alias dims), b,
+S_0 (s0), E_0 (e0), alpha_S (alpha), logZ (needs --beta).
 Around infinity b has x log x terms, so the series of b^q and of
-log(b)/x - log(x) are printed instead of b.
-With --closed-form each coefficient is matched by PSLQ against a basis of
-rationals times products of pi^2, zeta(3), log 2 (see the notes in the output);
+log(b)/x - log(x) are printed instead of b. E_0 and alpha_S come from
+low-temperature fits of the finite-temperature series, with the fitted S_0
+against its exact series as a built-in check.
+With --closed-form (h_n, b, S_0 only) each coefficient is matched by PSLQ
+against a basis of rationals times products of pi^2, zeta(3), zeta(5), log 2;
 a form is printed only when it holds on 10 digits beyond those used to find it.`,
-	Example: `  qbridge series dims --around 2 --order 20 --n 1
-  qbridge series s0 --around inf --order 12 --closed-form`,
+	Example: `  qbridge series h_1 --around 2 --order 20
+  qbridge series s0 --around inf --order 12 --closed-form
+  qbridge series alpha_S --around inf --order 6`,
 	Args: cobra.ArbitraryArgs,
 	RunE: func(cmd *cobra.Command, args []string) error {
 		end, err := parseEnd(seriesFlags.around)
@@ -61,132 +61,185 @@ a form is printed only when it holds on 10 digits beyond those used to find it.`
 		if seriesFlags.order < 0 || seriesFlags.order > conformal.MaxOrder {
 			return usageErr("--order must be between 0 and %d (got %d)", conformal.MaxOrder, seriesFlags.order)
 		}
-		if len(args) == 1 {
-			if p, ok := seriesProviders[args[0]]; ok {
-				out, err := p(cmd, end, seriesFlags.order)
-				if err != nil {
-					return err
-				}
-				return emit(cmd, out)
-			}
-		}
-		quantity, err := checkQuantity(args)
+		p, ns, err := quantityArg(args, seriesFlags.n, cmd.Flags().Changed("n"))
 		if err != nil {
 			return err
 		}
-		if seriesFlags.n < 0 || seriesFlags.n > conformal.MaxN {
-			return usageErr("--n must be between 0 and %d (got %d)", conformal.MaxN, seriesFlags.n)
+		if seriesFlags.closedForm && !p.Quantity().Exact {
+			return usageErr("--closed-form applies to h_n, b and S_0, whose coefficients are known to working precision; the %s coefficients are numerical (a few digits), too few for PSLQ", p.Quantity().Name)
 		}
 		digits := workDigits()
 		if seriesFlags.closedForm && digits < closedFormDigits {
 			digits = closedFormDigits // PSLQ needs digits to find a relation and 10 more to verify it
 		}
 		pr := newProgress(cmd, "series")
-		pr.Update(0, quantity)
-		var cs []*conformal.Coefficients
-		switch quantity {
-		case conformal.QuantityDims:
-			c, err := conformal.DimensionSeries(end, seriesFlags.n, seriesFlags.order, digits)
+		defer pr.Done()
+		var results []*expansion.SeriesResult
+		for i, n := range ns {
+			pr.Update(float64(i)/float64(len(ns)), p.Quantity().Named(n))
+			r, err := p.Series(expansion.Request{
+				N: n, End: end, Order: seriesFlags.order, Digits: digits, Beta: seriesFlags.beta,
+				Set:      setFlags(map[string]bool{"beta": cmd.Flags().Changed("beta")}),
+				Progress: pr.Update,
+			})
 			if err != nil {
-				pr.Done()
-				return err
+				return libErr(err)
 			}
-			cs = append(cs, c)
-		case conformal.QuantityB:
-			cs, err = conformal.BSeries(end, seriesFlags.order, digits)
-		case conformal.QuantityS0:
-			var c *conformal.Coefficients
-			c, err = conformal.S0Series(end, seriesFlags.order, digits)
-			cs = append(cs, c)
+			results = append(results, r)
 		}
 		pr.Done()
-		if err != nil {
-			return err
-		}
-		var forms [][]*conformal.ClosedForm
+		var forms [][][]*conformal.ClosedForm
 		if seriesFlags.closedForm {
-			for _, c := range cs {
-				f, err := conformal.IdentifyCoefficients(c)
-				if err != nil {
-					return err
+			for _, r := range results {
+				var fr [][]*conformal.ClosedForm
+				for _, c := range r.Parts {
+					f, err := conformal.IdentifyCoefficients(c)
+					if err != nil {
+						return err
+					}
+					fr = append(fr, f)
 				}
-				forms = append(forms, f)
+				forms = append(forms, fr)
 			}
 		}
-		return emit(cmd, seriesOutput(quantity, end, cs, forms))
+		return emit(cmd, seriesOutput(end, results, forms))
 	},
 }
 
-func seriesOutput(quantity string, end conformal.End, cs []*conformal.Coefficients, forms [][]*conformal.ClosedForm) *Output {
+// seriesOutput formats the series of one or more requests (several
+// dimensions): one table per series part, one JSON document per request
+// (a list when there are several).
+func seriesOutput(end conformal.End, results []*expansion.SeriesResult, forms [][][]*conformal.ClosedForm) *Output {
 	out := &Output{}
-	var jsList []map[string]any
-	for i, c := range cs {
-		tab := Table{
-			Title:  fmt.Sprintf("%s around q = %s, coefficients of %s^k", c.Quantity, end, end.Variable()),
-			Header: []string{"k", "coefficient", "error"},
-		}
-		if forms != nil {
-			tab.Header = append(tab.Header, "closed form")
-		}
-		js := map[string]any{
-			"quantity":     c.Quantity,
-			"around":       end.String(),
-			"variable":     end.Variable(),
-			"coefficients": valueStrings(c.Values, c.Errors, opts.Digits),
-			"errors":       errStrings(c.Errors),
-			"method":       c.Method,
-		}
-		if c.N >= 0 {
-			js["n"] = c.N
-		}
-		if c.Radius != nil {
-			js["radius"] = fmtBig(c.Radius, 4)
-			js["radius_error"] = fmtErr(c.RadiusErr)
-		}
-		var texts, texs []string
-		for k, v := range c.Values {
-			row := []string{strconv.Itoa(k), fmtValue(v, c.Errors[k], opts.Digits), fmtErr(c.Errors[k])}
+	var docs []map[string]any
+	for ri, r := range results {
+		var jsList []map[string]any
+		for i, c := range r.Parts {
+			var f []*conformal.ClosedForm
 			if forms != nil {
-				f := forms[i][k]
-				text, tex := "", ""
-				if f != nil {
-					text, tex = f.Text, f.TeX
-				}
-				if opts.Format == "tex" && tex != "" {
-					row = append(row, "$"+tex+"$")
-				} else {
-					row = append(row, text)
-				}
-				texts = append(texts, text)
-				texs = append(texs, tex)
+				f = forms[ri][i]
 			}
-			tab.Rows = append(tab.Rows, row)
+			tab, js := coefficientsTable(c, end, f, forms != nil)
+			out.Tables = append(out.Tables, tab)
+			jsList = append(jsList, js)
+			out.Notes = append(out.Notes, fmt.Sprintf("%s: %s", c.Quantity, c.Method))
+			if c.Radius != nil {
+				out.Notes = append(out.Notes, fmt.Sprintf("%s: radius of convergence in %s about %s +- %s (%s)",
+					c.Quantity, end.Variable(), fmtBig(c.Radius, 4), fmtErr(c.RadiusErr), c.RadiusMethod))
+			}
 		}
-		if forms != nil {
-			js["closed_forms"] = texts
-			js["closed_forms_tex"] = texs
+		if ck := r.Check; ck != nil {
+			tab, js := checkTable(ck, end)
+			out.Tables = append(out.Tables, tab)
+			jsList[0]["check"] = js
 		}
-		out.Tables = append(out.Tables, tab)
-		jsList = append(jsList, js)
-		out.Notes = append(out.Notes, fmt.Sprintf("%s: %s", c.Quantity, c.Method))
-		if c.Radius != nil {
-			out.Notes = append(out.Notes, fmt.Sprintf("%s: radius of convergence in %s about %s +- %s (%s)",
-				c.Quantity, end.Variable(), fmtBig(c.Radius, 4), fmtErr(c.RadiusErr), c.RadiusMethod))
-		} else {
-			out.Notes = append(out.Notes, fmt.Sprintf("%s: too few reliable coefficients for a radius estimate", c.Quantity))
+		out.Notes = append(out.Notes, r.Notes...)
+		// The first part is the main one; analytic companions (b around
+		// infinity, E beside log Z) ride along under "also".
+		if len(jsList) > 1 {
+			jsList[0]["also"] = jsList[1:]
 		}
-	}
-	if quantity == conformal.QuantityB && end == conformal.AroundInf {
-		out.Notes = append(out.Notes, "b is not a power series in x = 1/q: log b = x log x + x R(x); printed are b^q and R(x) = log(b)/x - log(x)")
+		docs = append(docs, jsList[0])
 	}
 	if forms != nil {
 		out.Notes = append(out.Notes, "closed forms: "+conformal.ClosedFormBasisDoc)
 	}
-	// The first series is the main one; further analytic companions (b
-	// around infinity) ride along under "also".
-	out.JSON = jsList[0]
-	if len(jsList) > 1 {
-		jsList[0]["also"] = jsList[1:]
+	out.Notes = append(out.Notes, "units: script-J = 1")
+	if len(docs) == 1 {
+		out.JSON = docs[0]
+	} else {
+		out.JSON = docs
+	}
+	return out
+}
+
+func coefficientsTable(c *conformal.Coefficients, end conformal.End, forms []*conformal.ClosedForm, withForms bool) (Table, map[string]any) {
+	name := c.Quantity
+	if c.N >= 0 {
+		name = "h_" + strconv.Itoa(c.N)
+	}
+	tab := Table{
+		Title:  fmt.Sprintf("%s around q = %s, coefficients of %s^k", name, end, end.Variable()),
+		Header: []string{"k", "coefficient", "error"},
+	}
+	if withForms {
+		tab.Header = append(tab.Header, "closed form")
+	}
+	js := map[string]any{
+		"quantity":     name,
+		"around":       end.String(),
+		"variable":     end.Variable(),
+		"coefficients": valueStrings(c.Values, c.Errors, opts.Digits),
+		"errors":       errStrings(c.Errors),
+		"method":       c.Method,
+	}
+	if c.N >= 0 {
+		js["n"] = c.N
+	}
+	if c.Radius != nil {
+		js["radius"] = fmtBig(c.Radius, 4)
+		js["radius_error"] = fmtErr(c.RadiusErr)
+	}
+	var texts, texs []string
+	for k, v := range c.Values {
+		row := []string{strconv.Itoa(k), fmtValue(v, c.Errors[k], opts.Digits), fmtErr(c.Errors[k])}
+		if withForms {
+			text, tex := "", ""
+			if f := forms[k]; f != nil {
+				text, tex = f.Text, f.TeX
+			}
+			if opts.Format == "tex" && tex != "" {
+				row = append(row, "$"+tex+"$")
+			} else {
+				row = append(row, text)
+			}
+			texts = append(texts, text)
+			texs = append(texs, tex)
+		}
+		tab.Rows = append(tab.Rows, row)
+	}
+	if withForms {
+		js["closed_forms"] = texts
+		js["closed_forms_tex"] = texs
+	}
+	return tab, js
+}
+
+// checkTable prints a built-in check: fitted coefficients against exact ones.
+func checkTable(ck *expansion.SeriesCheck, end conformal.End) (Table, map[string]any) {
+	tab := Table{
+		Title:  fmt.Sprintf("built-in check: %s fitted against its exact series around q = %s", ck.Name, end),
+		Header: []string{"k", ck.Name + " fitted", "error", ck.Name + " exact", "(fitted-exact)/error"},
+	}
+	var sig []string
+	for k := range ck.Fitted {
+		s := sigmaString(ck.Fitted[k], ck.Exact[k], ck.FittedErr[k])
+		sig = append(sig, s)
+		tab.Rows = append(tab.Rows, []string{strconv.Itoa(k), fmtValue(ck.Fitted[k], ck.FittedErr[k], opts.Digits), fmtErr(ck.FittedErr[k]), fmtBig(ck.Exact[k], opts.Digits), s})
+	}
+	return tab, map[string]any{
+		"quantity":     ck.Name,
+		"coefficients": valueStrings(ck.Fitted, ck.FittedErr, opts.Digits),
+		"errors":       errStrings(ck.FittedErr),
+		"exact":        errFreeStrings(ck.Exact),
+		"sigma":        sig,
+	}
+}
+
+// sigmaString prints (a - b)/e with two decimals, "-" when e is zero.
+func sigmaString(a, b, e *big.Float) string {
+	if e == nil || e.Sign() == 0 {
+		return "-"
+	}
+	d := new(big.Float).Sub(a, b)
+	s, _ := d.Quo(d, e).Float64()
+	return fmt.Sprintf("%.2f", s)
+}
+
+func errFreeStrings(xs []*big.Float) []string {
+	out := make([]string, len(xs))
+	for i, x := range xs {
+		out[i] = fmtBig(x, opts.Digits)
 	}
 	return out
 }
@@ -194,8 +247,9 @@ func seriesOutput(quantity string, end conformal.End, cs []*conformal.Coefficien
 func init() {
 	f := seriesCmd.Flags()
 	f.StringVar(&seriesFlags.around, "around", "2", "expansion point: 2 (variable eps = 1 - 2/q) or inf (variable x = 1/q)")
-	f.IntVar(&seriesFlags.order, "order", 12, fmt.Sprintf("highest power kept (0..%d)", conformal.MaxOrder))
-	f.IntVar(&seriesFlags.n, "n", 1, "dimension index n (dims only)")
-	f.BoolVar(&seriesFlags.closedForm, "closed-form", false, "identify closed forms of the coefficients by PSLQ")
+	f.IntVar(&seriesFlags.order, "order", 12, fmt.Sprintf("highest power kept (0..%d; E_0 and alpha_S: 0..%d around 2, 2..%d around inf)", conformal.MaxOrder, 40, 10))
+	f.StringVar(&seriesFlags.n, "n", "1", "dimension index for h_n: a number, a list 1,3 or a range 1..6")
+	f.BoolVar(&seriesFlags.closedForm, "closed-form", false, "identify closed forms of the coefficients by PSLQ (h_n, b, S_0)")
+	f.Float64Var(&seriesFlags.beta, "beta", 0, "inverse temperature beta*script-J (logZ only, required there)")
 	rootCmd.AddCommand(seriesCmd)
 }

@@ -1,0 +1,276 @@
+package expansion
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"math/big"
+	"sync"
+
+	"qbridge/expansion/conformal"
+	"qbridge/expansion/energy"
+)
+
+// energyProvider serves E_0 and alpha_S from package energy.
+type energyProvider struct {
+	q    Quantity
+	kind string // energy.QuantityE0 or energy.QuantityAlphaS
+}
+
+// logZProvider serves log Z (and E) at one inverse temperature.
+type logZProvider struct{ q Quantity }
+
+func init() {
+	register(energyProvider{Quantity{Name: E0, Aliases: []string{"e0"}, Unit: "script-J",
+		Summary: "ground-state energy per Majorana fermion"}, energy.QuantityE0})
+	register(energyProvider{Quantity{Name: AlphaS, Aliases: []string{"alpha", "alphas"}, Unit: "1 (action N alpha_S/script-J)",
+		Summary: "Schwarzian (soft-mode) coefficient: E = E_0 + 2 pi^2 alpha_S T^2 + ..."}, energy.QuantityAlphaS})
+	register(logZProvider{Quantity{Name: LogZ, Aliases: []string{"logz", "log z"}, Unit: "1 (per Majorana fermion)", NeedsBeta: true,
+		Summary: "log Z per Majorana fermion at inverse temperature beta (with E beside it)"}})
+}
+
+// Orders used by resum and report: the q = 2 side is cheap, the 1/q side
+// costs order^3 per grid point, so it is capped lower.
+const (
+	energyResumMaxEps = 10
+	energyResumMaxX   = 8
+	energyResumMinX   = 3
+	energyResumMinEps = 2
+	// MaxBeta is the largest beta*script-J of a log Z series.
+	MaxBeta = 1e5
+)
+
+// inputErr marks errors of energy caused by the request as ErrInput.
+func inputErr(err error) error {
+	if errors.Is(err, energy.ErrInput) || errors.Is(err, energy.ErrOrder) {
+		return fmt.Errorf("%w: %v", ErrInput, err)
+	}
+	return err
+}
+
+func checkEnergyOrder(end conformal.End, order int) error {
+	if end == conformal.AroundTwo {
+		if order < 0 || order > energy.MaxDeltaOrder {
+			return fmt.Errorf("%w: order %d: the q = 2 expansion takes orders 0..%d (the per-order cost and memory, order x grid points, set the limit)", ErrInput, order, energy.MaxDeltaOrder)
+		}
+		return nil
+	}
+	if order < 2 || order > energy.MaxInvQOrder {
+		return fmt.Errorf("%w: order %d: the 1/q expansion takes orders 2..%d (orders 0 and 1 are trivial; above %d the order^3 cost of the local source per grid point sets the limit)", ErrInput, order, energy.MaxInvQOrder, energy.MaxInvQOrder)
+	}
+	return nil
+}
+
+// bigs converts float64 values to big.Float.
+func bigs(v []float64) []*big.Float {
+	out := make([]*big.Float, len(v))
+	for i, x := range v {
+		out[i] = big.NewFloat(x)
+	}
+	return out
+}
+
+// groundCache keeps the ground series of one process: resum and report use
+// both ends for both quantities.
+var groundCache struct {
+	sync.Mutex
+	m map[[2]int]*energy.GroundSeries
+}
+
+func ground(end conformal.End, order int, progress func(float64, string)) (*energy.GroundSeries, error) {
+	groundCache.Lock()
+	defer groundCache.Unlock()
+	key := [2]int{int(end), order}
+	if g, ok := groundCache.m[key]; ok {
+		return g, nil
+	}
+	p := energy.GroundParams{Order: order, Progress: progress}
+	var g *energy.GroundSeries
+	var err error
+	if end == conformal.AroundTwo {
+		g, err = energy.EpsGround(p)
+	} else {
+		g, err = energy.InvQGround(p)
+	}
+	if err != nil {
+		return nil, inputErr(err)
+	}
+	if groundCache.m == nil {
+		groundCache.m = map[[2]int]*energy.GroundSeries{}
+	}
+	groundCache.m[key] = g
+	return g, nil
+}
+
+func (p energyProvider) Quantity() Quantity { return p.q }
+
+func (p energyProvider) check(r Request) error {
+	if r.Set["beta"] {
+		return fmt.Errorf("%w: --beta applies to the logZ series only: %s is a zero-temperature quantity", ErrInput, p.q.Name)
+	}
+	if r.Set["n"] {
+		return fmt.Errorf("%w: --n does not apply to %s (only to the dimensions h_n)", ErrInput, p.q.Name)
+	}
+	return nil
+}
+
+func (p energyProvider) Series(r Request) (*SeriesResult, error) {
+	if err := p.check(r); err != nil {
+		return nil, err
+	}
+	if err := checkEnergyOrder(r.End, r.Order); err != nil {
+		return nil, err
+	}
+	g, err := ground(r.End, r.Order, r.Progress)
+	if err != nil {
+		return nil, err
+	}
+	c := g.E0
+	if p.kind == energy.QuantityAlphaS {
+		c = g.AlphaS
+	}
+	var notes []string
+	if r.End == conformal.AroundTwo {
+		notes = append(notes, "Perturbation theory of the SD equations in delta = q - 2 at finite beta (per-frequency algebraic solves, sources by pointwise series arithmetic), converted to eps by delta = 2 eps/(1-eps) on every grid, Richardson-extrapolated in the grid spacing.")
+	} else {
+		notes = append(notes, "G = (1/2) sgn(tau)[1 + g_1/q + ...]: g_1 the Liouville solution, each g_k from Liouville's fluctuation operator with local and non-local sources, at finite beta, Richardson-extrapolated in the grid spacing.")
+	}
+	method := fmt.Sprintf("low-temperature fits of log Z_k = -beta E_0k + S_0k + 2 pi^2 alpha_Sk/beta + corrections over %d temperatures, beta = %.4g..%.4g; errors = spread over fit windows and models + propagated data errors", len(g.Ladder), g.BetaMin, g.BetaMax)
+	notes = append(notes, method+".", "log Z is evaluated from the converged G and Sigma at every order (the stationarity of log Z is not used).")
+	coeffs := &conformal.Coefficients{Quantity: p.q.Name, End: r.End, N: -1, Values: bigs(c.Values), Errors: bigs(c.Errors), Method: method, Prec: 53}
+	return &SeriesResult{
+		Parts: []*conformal.Coefficients{coeffs},
+		Check: &SeriesCheck{Name: S0, Fitted: bigs(g.S0.Values), FittedErr: bigs(g.S0.Errors), Exact: bigs(g.S0Exact)},
+		Notes: notes,
+	}, nil
+}
+
+// resumOrders clamps the requested order to what each end supports.
+func resumOrders(order int) (eps, x int) {
+	eps = min(max(order, energyResumMinEps), energyResumMaxEps)
+	x = min(max(order, energyResumMinX), energyResumMaxX)
+	return eps, x
+}
+
+// finiteQ returns q as a float64, refusing q = infinity.
+func finiteQ(q conformal.QPoint, name string) (float64, error) {
+	if q.Inf || q.Q == nil {
+		return 0, fmt.Errorf("%w: q = inf: %s vanishes at q = infinity; its 1/q series (qbridge series %s --around inf) starts at order 2", ErrInput, name, name)
+	}
+	v, _ := q.Q.Float64()
+	if math.IsNaN(v) || v < 2 || math.IsInf(v, 0) {
+		return 0, fmt.Errorf("%w: q must be a real number >= 2 (got %g)", ErrInput, v)
+	}
+	return v, nil
+}
+
+func (p energyProvider) Resum(qp conformal.QPoint, r Request) (*Resummation, error) {
+	if err := p.check(r); err != nil {
+		return nil, err
+	}
+	q, err := finiteQ(qp, p.q.Name)
+	if err != nil {
+		return nil, err
+	}
+	eo, xo := resumOrders(r.Order)
+	ge, err := ground(conformal.AroundTwo, eo, r.Progress)
+	if err != nil {
+		return nil, err
+	}
+	gi, err := ground(conformal.AroundInf, xo, r.Progress)
+	if err != nil {
+		return nil, err
+	}
+	res, err := energy.ResumGround(p.kind, q, ge, gi)
+	if err != nil {
+		return nil, inputErr(err)
+	}
+	d, err := energy.DirectGround(q, r.Progress)
+	if err != nil {
+		return nil, err
+	}
+	dv, de := d.E0, d.E0Err
+	if p.kind == energy.QuantityAlphaS {
+		dv, de = d.AlphaS, d.AlphaSErr
+	}
+	out := &Resummation{
+		Name: p.q.Name, Q: qp, OrderEps: eo, OrderX: xo,
+		Reference: &Reference{Value: big.NewFloat(dv), Err: big.NewFloat(de), Kind: "direct",
+			Method: "direct Schwinger-Dyson solver: ladder of solves in beta and joint low-temperature fits of log Z and E"},
+		Published: energyPublished(p.kind, q),
+		Notes: []string{
+			"The two-point Pade uses q^2 " + p.q.Name + " as a function of x = 1/q, finite at both ends: its series at x = 0 and at x = 1/2 (from eps = 1 - 2x).",
+			"Errors add the spread of the approximants and the shift under the coefficient error bars.",
+		},
+	}
+	if eo != r.Order || xo != r.Order {
+		out.Notes = append(out.Notes, fmt.Sprintf("order %d asked; used %d around q = 2 and %d around q = infinity (supported here: %d..%d and %d..%d)",
+			r.Order, eo, xo, energyResumMinEps, energyResumMaxEps, energyResumMinX, energyResumMaxX))
+	}
+	for _, e := range res.Estimates {
+		ce := conformal.Estimate{Method: e.Method, Detail: e.Detail}
+		if !math.IsNaN(e.Value) {
+			ce.Value = big.NewFloat(e.Value)
+			if !math.IsNaN(e.Err) && !math.IsInf(e.Err, 0) {
+				ce.Err = big.NewFloat(e.Err)
+			}
+		}
+		out.Estimates = append(out.Estimates, ce)
+	}
+	sortEstimates(out.Estimates)
+	return out, nil
+}
+
+// energyPublished returns the published q = 4 values (PHYSICS sec. 8):
+// E_0 = -0.0406 J = -0.05746 script-J (Maldacena-Stanford arXiv:1604.07818;
+// Garcia-Garcia-Verbaarschot arXiv:1610.03816; quoted from memory),
+// alpha_S ~ 0.007 (MS 2016).
+func energyPublished(kind string, q float64) *conformal.Published {
+	if q != 4 {
+		return nil
+	}
+	if kind == energy.QuantityE0 {
+		return &conformal.Published{Value: big.NewFloat(-0.05746), Digits: 4, Source: "MS 2016 arXiv:1604.07818; Garcia-Garcia-Verbaarschot arXiv:1610.03816 (-0.0406 J, from memory)"}
+	}
+	return &conformal.Published{Value: big.NewFloat(0.007), Digits: 1, Source: "MS 2016 arXiv:1604.07818"}
+}
+
+func (p logZProvider) Quantity() Quantity { return p.q }
+
+func (p logZProvider) Series(r Request) (*SeriesResult, error) {
+	if r.Set["n"] {
+		return nil, fmt.Errorf("%w: --n does not apply to %s", ErrInput, p.q.Name)
+	}
+	if err := checkEnergyOrder(r.End, r.Order); err != nil {
+		return nil, err
+	}
+	b := r.Beta
+	if !r.Set["beta"] {
+		return nil, fmt.Errorf("%w: the logZ series needs --beta (inverse temperature beta*script-J)", ErrInput)
+	}
+	if math.IsNaN(b) || b <= 0 || math.IsInf(b, 0) || b > MaxBeta {
+		return nil, fmt.Errorf("%w: --beta must be positive and at most %g (got %g)", ErrInput, MaxBeta, b)
+	}
+	var f *energy.FiniteBeta
+	var err error
+	if r.End == conformal.AroundTwo {
+		f, err = energy.DeltaExpand(energy.DeltaParams{Beta: b, Order: r.Order, Variable: energy.VarEps})
+	} else {
+		f, err = energy.InvQExpand(energy.InvQParams{Beta: b, Order: r.Order})
+	}
+	if err != nil {
+		return nil, inputErr(err)
+	}
+	method := fmt.Sprintf("finest grid %d points on [0, beta), %d grids, Richardson in the grid spacing, beta = %g", f.Points, f.Levels, b)
+	return &SeriesResult{
+		Parts: []*conformal.Coefficients{
+			{Quantity: p.q.Name, End: r.End, N: -1, Values: bigs(f.LogZ.Values), Errors: bigs(f.LogZ.Errors), Method: method, Prec: 53},
+			{Quantity: "E", End: r.End, N: -1, Values: bigs(f.E.Values), Errors: bigs(f.E.Errors), Method: method, Prec: 53},
+		},
+		Notes: []string{method + "."},
+	}, nil
+}
+
+func (p logZProvider) Resum(conformal.QPoint, Request) (*Resummation, error) {
+	return nil, fmt.Errorf("%w: logZ is not resummed at one q yet: use qbridge series logZ --beta B at each end, or qbridge solve", ErrInput)
+}
