@@ -1,22 +1,66 @@
 #!/usr/bin/env python3
-"""Golden values for the conformal data, computed with mpmath alone.
+"""Write conformal_golden.json: conformal data computed with mpmath alone.
 
-Writes conformal_golden.json: h_n(q) by mpmath.findroot of k_A(h) = 1,
-S_0(q) by mpmath.quad of the entropy integral, b(q) from its closed form,
-and Taylor coefficients of h_n around q = 2 (in eps = 1 - 2/q) and around
-q = infinity (in x = 1/q) by mpmath.taylor of the implicit root (numerical
-differentiation at high working precision, avoiding the singular point).
-
-Formulas (Maldacena-Stanford 2016, arXiv:1604.07818):
+Contents, for q in 2.5, 3, 4, 6, 10, 100:
+  dims:     h_n(q), n = 1..5, the root of k_A(h) = 1 between the pole at
+            2n+1+2/q and the zero at 2n+3-2/q (mpmath.findroot, anderson);
+  s0:       S_0(q) by mpmath.quad of the entropy integral;
+  b:        b(q) from its closed form;
+  clausen2: Cl_2(theta) (mpmath.clsin) at theta = 0.5, pi/2 (given to 64 digits), 3;
+  taylor_dims: the first 7 Taylor coefficients of h_n, n = 1..3, around
+            q = 2 (in eps = 1 - 2/q) and around q = infinity (in x = 1/q),
+            by mpmath.taylor of the implicit root (numerical differentiation,
+            avoiding the singular point).
+with
   k_A(h) = -(q-1) G(3/2-D) G(1-D) / (G(1/2+D) G(D))
            * G(D+h/2) G(1/2+D-h/2) / (G(3/2-D-h/2) G(1-D+h/2)),  D = 1/q
   b^q pi = (1/2 - 1/q) tan(pi/q)
   S_0 = log(2)/2 - int_0^{1/q} pi (1/2 - x) tan(pi x) dx
+(the formulas of Maldacena and Stanford 2016, arXiv:1604.07818, as quoted
+in the project's physics brief, section 4).
 
-Run:  python3 testdata/gen_conformal.py > testdata/conformal_golden.json
+Precision: dims, s0, b and clausen2 are computed at mp.dps = 50 and written
+with 40 significant digits. The Taylor coefficients are computed at
+mp.dps = 120 with two step sizes (1e-25 and 1e-28), which must agree to
+1e-20 * max(1, |c|) before anything is written; they are written with 20
+significant digits, values below 1e-22 written as 0.
+
+Run from the repository root (OUTDIR defaults to this script's directory):
+
+    python3 testdata/gen_conformal.py [OUTDIR]
+
+It writes OUTDIR/conformal_golden.json and prints one line on stderr.
+It takes a minute or two.
 """
 import json
+import os
+import sys
+
 import mpmath as mp
+
+NAME = "conformal_golden.json"
+
+
+def output_dir():
+    """The one optional argument: the output directory (default: this script's)."""
+    args = sys.argv[1:]
+    if len(args) > 1 or (args and args[0].startswith("-")):
+        raise SystemExit("usage: python3 %s [OUTDIR]" % sys.argv[0])
+    return args[0] if args else os.path.dirname(os.path.abspath(__file__))
+
+
+def write_golden(out, outdir, name):
+    """Write out as JSON (indent 1, keys in the insertion order fixed by this
+    script, trailing newline) to outdir/name, via a temporary file so a
+    failed run never leaves a truncated golden file behind."""
+    os.makedirs(outdir, exist_ok=True)
+    path = os.path.join(outdir, name)
+    tmp = path + ".tmp"
+    with open(tmp, "w", encoding="utf-8", newline="\n") as f:
+        f.write(json.dumps(out, indent=1))
+        f.write("\n")
+    os.replace(tmp, path)
+    print("wrote " + path, file=sys.stderr)
 
 
 def kA(h, q):
@@ -70,7 +114,7 @@ def b(q):
     return ((mp.mpf(1) / 2 - 1 / q) * mp.tan(mp.pi / q) / mp.pi) ** (1 / q)
 
 
-def main():
+def compute():
     out = {"source": "mpmath %s, testdata/gen_conformal.py" % mp.__version__, "dps": 40}
     mp.mp.dps = 50
     qs = ["2.5", "3", "4", "6", "10", "100"]
@@ -97,7 +141,12 @@ def main():
                     raise SystemExit("taylor coefficients unstable: %s vs %s" % (a, bb))
                 coeffs.append(mp.nstr(mp.chop(bb, mp.mpf('1e-22')), 20))
             out["taylor_dims"].append({"around": end, "n": n, "coefficients": coeffs, "digits": 20})
-    print(json.dumps(out, indent=1))
+    return out
+
+
+def main():
+    outdir = output_dir()
+    write_golden(compute(), outdir, NAME)
 
 
 if __name__ == "__main__":

@@ -1,19 +1,28 @@
 #!/usr/bin/env python3
-"""Golden Taylor coefficients for the series package's elementary functions.
+"""Write elementary_golden.json: Taylor coefficients at t = 0 of
+compositions of elementary functions, for the series package's tests.
 
-Each case is a function of t whose Taylor coefficients at t = 0 are computed
-by mpmath.taylor (numerical differentiation at high working precision) and
-written with 40 significant digits to elementary_golden.json. Every case is
-computed at two working precisions and must agree to 45 digits before it is
-written, so the file does not depend on the step-size choices inside
-mpmath.diff. Regenerate with:
+Each case is a function of t (the Go test builds the same composition);
+its first N = 16 Taylor coefficients are computed by mpmath.taylor
+(numerical differentiation at high working precision). Every case is
+computed at 70 and at 90 working digits and the two must agree to 45
+digits before anything is written, so the file does not depend on the
+step-size choices inside mpmath.diff. Coefficients are written with 40
+significant digits in exponent notation ("0" for an exact zero).
 
-    python3 gen_elementary.py > elementary_golden.json
+Run from the repository root (OUTDIR defaults to this script's directory):
+
+    python3 testdata/gen_elementary.py [OUTDIR]
+
+It writes OUTDIR/elementary_golden.json and prints one line on stderr.
 """
 import json
+import os
+import sys
 
 import mpmath
 
+NAME = "elementary_golden.json"
 N = 16  # coefficients per case
 
 CASES = [
@@ -28,12 +37,34 @@ CASES = [
 ]
 
 
+def output_dir():
+    """The one optional argument: the output directory (default: this script's)."""
+    args = sys.argv[1:]
+    if len(args) > 1 or (args and args[0].startswith("-")):
+        raise SystemExit("usage: python3 %s [OUTDIR]" % sys.argv[0])
+    return args[0] if args else os.path.dirname(os.path.abspath(__file__))
+
+
+def write_golden(out, outdir, name):
+    """Write out as JSON (indent 1, keys in the insertion order fixed by this
+    script, trailing newline) to outdir/name, via a temporary file so a
+    failed run never leaves a truncated golden file behind."""
+    os.makedirs(outdir, exist_ok=True)
+    path = os.path.join(outdir, name)
+    tmp = path + ".tmp"
+    with open(tmp, "w", encoding="utf-8", newline="\n") as f:
+        f.write(json.dumps(out, indent=1))
+        f.write("\n")
+    os.replace(tmp, path)
+    print("wrote " + path, file=sys.stderr)
+
+
 def coefficients(f, dps):
     with mpmath.workdps(dps):
         return mpmath.taylor(f, 0, N - 1)
 
 
-def main():
+def compute():
     out = {"source": "mpmath %s taylor, 40 digits" % mpmath.__version__, "cases": []}
     for name, f in CASES:
         lo = coefficients(f, 70)
@@ -45,7 +76,12 @@ def main():
         with mpmath.workdps(90):
             coeffs = [mpmath.nstr(c, 40, min_fixed=-1, max_fixed=-1) if c != 0 else "0" for c in hi]
         out["cases"].append({"name": name, "coeffs": coeffs})
-    print(json.dumps(out, indent=1))
+    return out
+
+
+def main():
+    outdir = output_dir()
+    write_golden(compute(), outdir, NAME)
 
 
 if __name__ == "__main__":

@@ -1,18 +1,47 @@
 #!/usr/bin/env python3
-"""Generate pade_golden.json: Pade approximants from mpmath.pade.
+"""Write pade_golden.json: [L/M] Pade approximants from mpmath.pade.
 
-Taylor coefficients of exp(x) (1/k!) and log(1+x) ((-1)^(k+1)/k) are
-computed exactly as mpmath rationals at 80 working digits; mpmath.pade
-returns the numerator and denominator coefficients (denominator q[0] = 1),
-written with 50 significant digits. Run from this directory:
+The Taylor coefficients of exp(x) (1/k!) and log(1+x) ((-1)^(k+1)/k) are
+formed at mp.dps = 80; mpmath.pade returns the numerator coefficients p and
+the denominator coefficients q (q[0] = 1), written with 50 significant
+digits, for (L, M) in (1,1), (2,2), (3,2), (2,3), (4,4), (6,5), (8,8).
 
-    python3 gen_pade.py > pade_golden.json
+Run from the repository root (OUTDIR defaults to this script's directory):
+
+    python3 testdata/gen_pade.py [OUTDIR]
+
+It writes OUTDIR/pade_golden.json and prints one line on stderr.
 """
 import json
+import os
+import sys
 
 import mpmath
 
-mpmath.mp.dps = 80
+NAME = "pade_golden.json"
+DPS = 80
+
+
+def output_dir():
+    """The one optional argument: the output directory (default: this script's)."""
+    args = sys.argv[1:]
+    if len(args) > 1 or (args and args[0].startswith("-")):
+        raise SystemExit("usage: python3 %s [OUTDIR]" % sys.argv[0])
+    return args[0] if args else os.path.dirname(os.path.abspath(__file__))
+
+
+def write_golden(out, outdir, name):
+    """Write out as JSON (indent 1, keys in the insertion order fixed by this
+    script, trailing newline) to outdir/name, via a temporary file so a
+    failed run never leaves a truncated golden file behind."""
+    os.makedirs(outdir, exist_ok=True)
+    path = os.path.join(outdir, name)
+    tmp = path + ".tmp"
+    with open(tmp, "w", encoding="utf-8", newline="\n") as f:
+        f.write(json.dumps(out, indent=1))
+        f.write("\n")
+    os.replace(tmp, path)
+    print("wrote " + path, file=sys.stderr)
 
 
 def taylor(name, n):
@@ -23,20 +52,30 @@ def taylor(name, n):
     raise ValueError(name)
 
 
-cases = []
-for name in ("exp", "log1p"):
-    for L, M in ((1, 1), (2, 2), (3, 2), (2, 3), (4, 4), (6, 5), (8, 8)):
-        a = taylor(name, L + M + 1)
-        p, q = mpmath.pade(a, L, M)
-        cases.append({
-            "func": name,
-            "L": L,
-            "M": M,
-            "p": [mpmath.nstr(v, 50) for v in p],
-            "q": [mpmath.nstr(v, 50) for v in q],
-        })
+def compute():
+    mpmath.mp.dps = DPS
+    cases = []
+    for name in ("exp", "log1p"):
+        for L, M in ((1, 1), (2, 2), (3, 2), (2, 3), (4, 4), (6, 5), (8, 8)):
+            a = taylor(name, L + M + 1)
+            p, q = mpmath.pade(a, L, M)
+            cases.append({
+                "func": name,
+                "L": L,
+                "M": M,
+                "p": [mpmath.nstr(v, 50) for v in p],
+                "q": [mpmath.nstr(v, 50) for v in q],
+            })
+    return {
+        "source": "mpmath %s mpmath.pade at mp.dps = %d, printed to 50 digits" % (mpmath.__version__, DPS),
+        "cases": cases,
+    }
 
-print(json.dumps({
-    "source": "mpmath %s mpmath.pade at mp.dps = 80, printed to 50 digits" % mpmath.__version__,
-    "cases": cases,
-}, indent=1))
+
+def main():
+    outdir = output_dir()
+    write_golden(compute(), outdir, NAME)
+
+
+if __name__ == "__main__":
+    main()

@@ -1,29 +1,66 @@
 #!/usr/bin/env python3
-"""Generate special_golden.json: reference values of the Gamma family and
-Hurwitz zeta from mpmath at 80 significant digits, for the Go tests in
-series/. Run from this directory: python3 gen_special.py
+"""Write special_golden.json: reference values of the Gamma family and the
+Hurwitz zeta function from mpmath, for the Go tests in series/.
 
-Taylor coefficients are built from mpmath's own psi / zeta / rgamma
-(not numerical differentiation), so they are accurate to full precision:
-  log Gamma(x0+t):  c0 = loggamma(x0), c1 = psi(0, x0),
-                    ck = (-1)^k zeta(k, x0)/k                (k >= 2)
-  1/Gamma(-3+t):    mpmath.taylor of rgamma at high precision with
-                    the result rounded to 60 digits (rgamma is entire, so
-                    mpmath's differentiation converges).
+Precision: every value is computed at mp.dps = 80 and written with 80
+significant digits (trailing zeros kept, exponent notation outside [0.1, 1)).
+Contents:
+  gamma, loggamma (log|Gamma|), rgamma (1/Gamma) at real points;
+  psi(m, x) for m = 0..4; Hurwitz zeta(s, a); Riemann zeta(s);
+  complex log Gamma (principal branch, mpmath.loggamma);
+  euler, zeta(3), pi;
+  Taylor coefficients built from mpmath's own psi / zeta (not numerical
+  differentiation), so they are accurate to full precision:
+    log Gamma(x0+t):  c0 = loggamma(x0), c1 = psi(0, x0),
+                      ck = (-1)^k zeta(k, x0)/k                (k >= 2)
+  and of 1/Gamma(-3+t) by mpmath.taylor at 200 working digits (rgamma is
+  entire, so the numerical differentiation converges), written to 80 digits.
+
+Run from the repository root (OUTDIR defaults to this script's directory):
+
+    python3 testdata/gen_special.py [OUTDIR]
+
+It writes OUTDIR/special_golden.json and prints one line on stderr.
 """
 import json
+import os
+import sys
+
 import mpmath
 from mpmath import mp, mpf, mpc
 
 DPS = 80
-mp.dps = DPS
+NAME = "special_golden.json"
+
+
+def output_dir():
+    """The one optional argument: the output directory (default: this script's)."""
+    args = sys.argv[1:]
+    if len(args) > 1 or (args and args[0].startswith("-")):
+        raise SystemExit("usage: python3 %s [OUTDIR]" % sys.argv[0])
+    return args[0] if args else os.path.dirname(os.path.abspath(__file__))
+
+
+def write_golden(out, outdir, name):
+    """Write out as JSON (indent 1, keys in the insertion order fixed by this
+    script, trailing newline) to outdir/name, via a temporary file so a
+    failed run never leaves a truncated golden file behind."""
+    os.makedirs(outdir, exist_ok=True)
+    path = os.path.join(outdir, name)
+    tmp = path + ".tmp"
+    with open(tmp, "w", encoding="utf-8", newline="\n") as f:
+        f.write(json.dumps(out, indent=1))
+        f.write("\n")
+    os.replace(tmp, path)
+    print("wrote " + path, file=sys.stderr)
 
 
 def s(x):
     return mpmath.nstr(x, DPS, strip_zeros=False, min_fixed=1, max_fixed=0)
 
 
-def main():
+def compute():
+    mp.dps = DPS
     out = {"dps": DPS, "mpmath": mpmath.__version__}
     xs = ["0.5", "0.25", "1", "1.5", "2.75", "7.125", "33.3", "-0.5", "-2.25", "-7.9", "0.001", "123.456"]
     out["gamma"] = [{"x": x, "v": s(mpmath.gamma(mpf(x)))} for x in xs]
@@ -52,9 +89,12 @@ def main():
         v = mpmath.loggamma(mpc(mpf(re), mpf(im)))
         out["cloggamma"].append({"re": re, "im": im, "vre": s(v.real), "vim": s(v.imag)})
     out["constants"] = {"euler": s(mpmath.euler), "zeta3": s(mpmath.zeta(3)), "pi": s(mpmath.pi)}
-    with open("special_golden.json", "w") as f:
-        json.dump(out, f, indent=1)
-        f.write("\n")
+    return out
+
+
+def main():
+    outdir = output_dir()
+    write_golden(compute(), outdir, NAME)
 
 
 if __name__ == "__main__":
