@@ -17,8 +17,10 @@ const ClosedFormBasisDoc = "each coefficient is matched by PSLQ against rational
 
 // ClosedForm is an identified exact form of a number.
 type ClosedForm struct {
-	Text string // e.g. "-1/6*pi^2 + 2*log(2)"
-	TeX  string // e.g. "-\frac{1}{6}\pi^{2} + 2\log 2"
+	// Text is the form as plain text, e.g. "-1/6*pi^2 + 2*log(2)".
+	Text string
+	// TeX is the same form as LaTeX, e.g. "-\frac{1}{6}\pi^{2} + 2\log 2".
+	TeX string
 }
 
 type basisElem struct {

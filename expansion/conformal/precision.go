@@ -7,10 +7,15 @@ import (
 
 // Limits on what callers may ask for.
 const (
+	// MinDigits is the smallest number of decimal digits a caller may ask for.
 	MinDigits = 5
+	// MaxDigits is the largest number of decimal digits a caller may ask for.
 	MaxDigits = 1000
-	MaxOrder  = 200 // highest series order accepted
-	MaxN      = 200 // highest dimension index accepted
+	// MaxOrder is the highest series order (power of the expansion
+	// variable) accepted.
+	MaxOrder = 200
+	// MaxN is the highest dimension index n of h_n accepted.
+	MaxN = 200
 )
 
 // bitsFor returns the working precision in bits for the requested decimal

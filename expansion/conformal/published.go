@@ -9,8 +9,12 @@ import (
 // Published is a value from the literature, with the digits as printed
 // and where it was printed.
 type Published struct {
-	Value  *big.Float
-	Digits int // significant digits as published
+	// Value is the published number, held at 64 bits.
+	Value *big.Float
+	// Digits is the number of significant decimal digits as printed; 0 when
+	// Value is evaluated here from a published formula.
+	Digits int
+	// Source names the publication (and formula, if any) Value comes from.
 	Source string
 }
 

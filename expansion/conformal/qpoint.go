@@ -9,8 +9,10 @@ import (
 // QPoint is a value of the interaction order q: a real number >= 2 or
 // infinity.
 type QPoint struct {
+	// Inf is true for q = infinity.
 	Inf bool
-	Q   *big.Float // nil when Inf
+	// Q is the finite value of q (>= 2); nil when Inf.
+	Q *big.Float
 }
 
 // ParseQ reads q from text ("4", "2.5", "1e3", "inf") at prec bits and

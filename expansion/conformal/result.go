@@ -7,28 +7,52 @@ import (
 // Value is an exactly defined quantity evaluated numerically, with an error
 // estimate and a description of how it was obtained.
 type Value struct {
+	// Quantity names what was evaluated: "h_n" (n the index), "b" or "S_0".
 	Quantity string
-	Q        QPoint
-	N        int // dimension index; -1 where it does not apply
-	Value    *big.Float
-	Err      *big.Float
-	Method   string
+	// Q is the point q at which the quantity was evaluated.
+	Q QPoint
+	// N is the dimension index n of h_n; -1 where it does not apply.
+	N int
+	// Value is the result, from the more precise of the two runs.
+	Value *big.Float
+	// Err is the estimated absolute error of Value: the difference between
+	// the two runs plus a few units in the last place.
+	Err *big.Float
+	// Method says in words how Value was computed and at which two
+	// precisions (in bits) it was run.
+	Method string
 }
 
 // Coefficients is the Taylor series of a quantity around one end of the q
 // axis, every coefficient with an error estimate.
 type Coefficients struct {
+	// Quantity names the function expanded, e.g. "h_n" (n the index), "b",
+	// "b^q" or "S_0".
 	Quantity string
-	End      End
-	N        int // dimension index; -1 where it does not apply
-	Values   []*big.Float
-	Errors   []*big.Float
+	// End is the end of the q axis expanded around, which fixes the
+	// variable: eps = 1 - 2/q or x = 1/q.
+	End End
+	// N is the dimension index n of h_n; -1 where it does not apply.
+	N int
+	// Values holds the coefficients, from the more precise of the two runs:
+	// Values[k] multiplies the k-th power of the expansion variable,
+	// k = 0..order.
+	Values []*big.Float
+	// Errors holds the estimated absolute error of each coefficient:
+	// Errors[k] is the difference between the two runs for Values[k] plus a
+	// few units in the last place.
+	Errors []*big.Float
 	// Radius estimates the radius of convergence in the expansion variable
 	// (RadiusErr its uncertainty); nil when the coefficients do not allow it.
 	Radius, RadiusErr *big.Float
-	RadiusMethod      string
-	Method            string
-	Prec              uint // bits of the more precise of the two runs
+	// RadiusMethod says in words how Radius was estimated; empty when
+	// Radius is nil.
+	RadiusMethod string
+	// Method says in words how the coefficients were computed and at which
+	// two precisions (in bits) they were run.
+	Method string
+	// Prec is the precision in bits of the more precise of the two runs.
+	Prec uint
 }
 
 // pairErrors returns the values of the more precise run and, as error, the

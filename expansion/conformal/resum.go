@@ -11,20 +11,31 @@ import (
 
 // Estimate is one resummed value of a quantity at a given q.
 type Estimate struct {
-	Method string // short label: "eps partial sum", "eps Pade", ...
-	Value  *big.Float
-	Err    *big.Float
-	Detail string // how it was obtained (order, entry, spread)
+	// Method is a short label for the estimator: "eps partial sum",
+	// "eps Pade", "1/q partial sum", "1/q Pade" or "two-point Pade".
+	Method string
+	// Value is the resummed value; nil if the estimator failed.
+	Value *big.Float
+	// Err is the estimated absolute error of Value (nil with Value).
+	Err *big.Float
+	// Detail says how Value was obtained (order, entry, spread) or why the
+	// estimator failed.
+	Detail string
 }
 
 // Resummation collects the estimates of one quantity at one q, with the
 // exact value beside them.
 type Resummation struct {
+	// Quantity names the quantity resummed, as in Exact.Quantity.
 	Quantity string
-	Q        QPoint
-	N        int
-	Order    int
-	Exact    *Value
+	// Q is the point q at which the quantity was resummed.
+	Q QPoint
+	// N is the dimension index n of h_n; -1 for b and S_0.
+	N int
+	// Order is the series order (highest power) used around each end.
+	Order int
+	// Exact is the directly computed value of the quantity at Q.
+	Exact *Value
 	// Estimates in a fixed order: partial sums, Pade table, at each end,
 	// then the two-point Pade.
 	Estimates []Estimate
@@ -32,9 +43,12 @@ type Resummation struct {
 
 // Quantities that Resum and the series functions know.
 const (
+	// QuantityDims selects the operator dimensions h_n.
 	QuantityDims = "dims"
-	QuantityB    = "b"
-	QuantityS0   = "s0"
+	// QuantityB selects the conformal coefficient b.
+	QuantityB = "b"
+	// QuantityS0 selects the zero-temperature entropy S_0.
+	QuantityS0 = "s0"
 )
 
 // bothEnds returns the series of the analytic function resummed for the

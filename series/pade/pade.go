@@ -36,6 +36,8 @@ type Pade struct {
 // noise in the coefficients or from asking for more poles than the function
 // has, and carry no information about the function.
 type Doublet struct {
+	// Pole is the pole (a root of the denominator) and Zero the root of the
+	// numerator paired with it.
 	Pole, Zero scalar.Complex
 	// Distance is |Pole - Zero|.
 	Distance *big.Float

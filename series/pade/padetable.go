@@ -14,19 +14,23 @@ import (
 type PadeTableOptions struct {
 	// N is the highest order L+M used; 0 means s.Len()-1.
 	N int
-	// Width: entries with |L-M| <= Width are built and reported; 0 means 2.
-	// Set it to N for the full triangle.
+	// Width is the largest |L-M| of the entries built and reported; 0 means
+	// 2, and it is raised to Diag if smaller. Set it to N for the full
+	// triangle.
 	Width int
-	// Diag: only entries with |L-M| <= Diag enter the estimate; 0 means 1.
+	// Diag is the largest |L-M| of the entries that enter the estimate; 0
+	// means 1.
 	Diag int
 	// Best is how many of the highest-order admissible entries enter the
 	// error estimate; 0 means 3. It must be at least 2.
 	Best int
-	// PoleMargin: a pole at distance <= PoleMargin from the segment between
-	// the expansion point and x disqualifies an entry. nil means |x|/100.
+	// PoleMargin is the distance from the segment between the expansion
+	// point and x within which a pole disqualifies an entry; nil means
+	// |x|/100.
 	PoleMargin *big.Float
-	// DoubletTol: a pole closer than this to a zero is a Froissart doublet
-	// and is ignored. nil means 2^-(prec/4).
+	// DoubletTol is the pole-zero distance below which a pole counts as
+	// half of a Froissart doublet and is ignored; nil means 2^-(prec/4),
+	// prec being the series precision in bits.
 	DoubletTol *big.Float
 }
 

@@ -181,16 +181,17 @@ type TwoPointOptions struct {
 	N int
 	// Orders is how many total orders N, N-1, ... are scanned; 0 means 2.
 	Orders int
-	// Diag: only [L/M] with |L-M| <= Diag are built; 0 means 1.
+	// Diag is the largest |L-M| of the [L/M] entries built; 0 means 1.
 	Diag int
 	// MinK is the least number of terms matched at each end; 0 means
 	// max(1, N/4), which keeps both expansions in play.
 	MinK int
-	// PoleMargin: an entry with a pole within PoleMargin of the segment
-	// spanned by a, b and x is discarded; nil means |b-a|/100.
+	// PoleMargin is the distance from the segment spanned by a, b and x
+	// within which a pole discards an entry; nil means |b-a|/100.
 	PoleMargin *big.Float
-	// DoubletTol: poles closer than this to a zero are Froissart doublets
-	// and are ignored; nil means 2^-(prec/4).
+	// DoubletTol is the pole-zero distance below which a pole counts as
+	// half of a Froissart doublet and is ignored; nil means 2^-(prec/4),
+	// prec being the larger series precision in bits.
 	DoubletTol *big.Float
 }
 

@@ -5,6 +5,8 @@ import "math/big"
 // Complex is an arbitrary-precision complex number Re + i Im. Its methods
 // return new values at the precision passed in; operands are not modified.
 type Complex struct {
+	// Re and Im are the real and imaginary parts; each carries its own
+	// precision in bits.
 	Re, Im *big.Float
 }
 
