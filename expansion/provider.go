@@ -99,11 +99,16 @@ func (r *Resummation) Difference(e conformal.Estimate) *big.Float {
 
 // Method names, in the one order every resummation lists them.
 const (
+	// MethodPartialEps is the partial sum of the series in eps at eps(q).
 	MethodPartialEps = "eps partial sum"
-	MethodPadeEps    = "eps Pade"
-	MethodPartialX   = "1/q partial sum"
-	MethodPadeX      = "1/q Pade"
-	MethodTwoPoint   = "two-point Pade"
+	// MethodPadeEps is the best pole-free Pade-table entry of the eps series.
+	MethodPadeEps = "eps Pade"
+	// MethodPartialX is the partial sum of the series in x = 1/q.
+	MethodPartialX = "1/q partial sum"
+	// MethodPadeX is the best pole-free Pade-table entry of the x series.
+	MethodPadeX = "1/q Pade"
+	// MethodTwoPoint is the two-point Pade matching both series.
+	MethodTwoPoint = "two-point Pade"
 )
 
 // MethodOrder is the order in which resummation methods are listed.
@@ -150,6 +155,7 @@ func Providers() []Provider { return slices.Clone(registry) }
 
 // ExactProvider is implemented by quantities with an exact value at every q.
 type ExactProvider interface {
+	// Provider is the quantity's series and resummation.
 	Provider
 	// Exact returns the value at q (index r.N for the dimensions) with its
 	// error, from two working precisions.

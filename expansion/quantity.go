@@ -9,12 +9,18 @@ import (
 // Canonical quantity names, as every command prints them and every JSON
 // document keys them. A dimension is named h_1, h_2, ...; HN is the family.
 const (
-	HN     = "h_n"
-	B      = "b"
-	S0     = "S_0"
-	E0     = "E_0"
+	// HN names the family of operator dimensions h_1, h_2, ...
+	HN = "h_n"
+	// B is the coefficient of the conformal two-point function.
+	B = "b"
+	// S0 is the zero-temperature entropy per Majorana fermion.
+	S0 = "S_0"
+	// E0 is the ground-state energy per Majorana fermion (script-J = 1).
+	E0 = "E_0"
+	// AlphaS is the Schwarzian coefficient.
 	AlphaS = "alpha_S"
-	LogZ   = "logZ"
+	// LogZ is log Z per Majorana fermion at one inverse temperature.
+	LogZ = "logZ"
 )
 
 // Quantity describes one entry of the vocabulary.
