@@ -18,16 +18,22 @@ import (
 // for the text, CSV and LaTeX renderings. Notes say how the numbers were
 // obtained (method, order, grid, precision).
 type Output struct {
-	JSON   any
+	// JSON is the document written by --format json.
+	JSON any
+	// Tables are written by the text, CSV and LaTeX formats.
 	Tables []Table
-	Notes  []string
+	// Notes say how the numbers were obtained.
+	Notes []string
 }
 
 // Table is a titled grid of already formatted cells.
 type Table struct {
-	Title  string
+	// Title is printed above the table (a caption in LaTeX).
+	Title string
+	// Header names the columns.
 	Header []string
-	Rows   [][]string
+	// Rows are the formatted cells, one slice per row.
+	Rows [][]string
 }
 
 // emit writes out in the format chosen by --format.
