@@ -28,7 +28,10 @@ func (c *constCache) get(prec uint, compute func(prec uint) (*big.Float, error))
 	return new(big.Float).SetPrec(prec).Set(c.v), nil
 }
 
+// The one set of constant caches of the project.
 var (
+	piCache         constCache
+	ln2Cache        constCache
 	eulerGammaCache constCache
 	halfLog2PiCache constCache
 	logPiCache      constCache

@@ -3,35 +3,24 @@ package scalar
 import (
 	"errors"
 	"math/big"
-	"sync"
 )
 
 // Guard is the number of extra bits carried inside the elementary functions
 // so that the result is correct to the requested precision after rounding.
 const Guard = 32
 
-var piCache = struct {
-	sync.Mutex
-	prec uint
-	v    *big.Float
-}{}
-
 // Pi returns pi rounded to prec bits (Machin's formula, cached at the
 // highest precision asked for so far).
 func Pi(prec uint) *big.Float {
-	piCache.Lock()
-	defer piCache.Unlock()
-	if piCache.v == nil || piCache.prec < prec {
-		p := prec + Guard
+	v, _ := piCache.get(prec, func(p uint) (*big.Float, error) {
 		// pi = 16 atan(1/5) - 4 atan(1/239)
 		a := atanInv(5, p)
 		b := atanInv(239, p)
 		a.Mul(a, big.NewFloat(16).SetPrec(p))
 		b.Mul(b, big.NewFloat(4).SetPrec(p))
-		a.Sub(a, b)
-		piCache.v, piCache.prec = a, prec
-	}
-	return new(big.Float).SetPrec(prec).Set(piCache.v)
+		return a.Sub(a, b), nil
+	})
+	return v
 }
 
 // atanInv returns atan(1/m) for an integer m > 1 by its Taylor series.
@@ -57,24 +46,15 @@ func atanInv(m int64, prec uint) *big.Float {
 	return sum
 }
 
-var ln2Cache = struct {
-	sync.Mutex
-	prec uint
-	v    *big.Float
-}{}
-
 // Ln2 returns log 2 rounded to prec bits (log 2 = 2 atanh(1/3), cached at
 // the highest precision asked for so far).
 func Ln2(prec uint) *big.Float {
-	ln2Cache.Lock()
-	defer ln2Cache.Unlock()
-	if ln2Cache.v == nil || ln2Cache.prec < prec {
-		p := prec + Guard
+	v, _ := ln2Cache.get(prec, func(p uint) (*big.Float, error) {
 		third := new(big.Float).SetPrec(p).Quo(big.NewFloat(1), big.NewFloat(3))
 		v := atanhSeries(third, p)
-		ln2Cache.v, ln2Cache.prec = v.SetMantExp(v, 1), prec
-	}
-	return new(big.Float).SetPrec(prec).Set(ln2Cache.v)
+		return v.SetMantExp(v, 1), nil
+	})
+	return v
 }
 
 // atanhSeries returns atanh z = z + z^3/3 + z^5/5 + ... for small |z|.
