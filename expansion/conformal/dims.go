@@ -53,34 +53,13 @@ func DimensionSeries(end End, n, order, digits int) (*Coefficients, error) {
 	if err := checkN(n); err != nil {
 		return nil, err
 	}
-	if err := checkOrder(order); err != nil {
-		return nil, err
-	}
-	if err := checkDigits(digits); err != nil {
-		return nil, err
-	}
-	p1 := bitsFor(digits, order)
-	p2 := secondPrec(p1)
-	lo, err := dimensionSeries(end, n, order, p1)
+	c, err := twoPrecision(fmt.Sprintf("h_%d", n), end, order, digits,
+		"Newton iteration on series for k_A(h) = 1 with the colliding pole and zero cancelled",
+		func(order int, prec uint) ([]*big.Float, error) { return dimensionSeries(end, n, order, prec) })
 	if err != nil {
 		return nil, err
 	}
-	hi, err := dimensionSeries(end, n, order, p2)
-	if err != nil {
-		return nil, err
-	}
-	vals, errs := pairErrors(lo, hi, p1)
-	c := &Coefficients{
-		Quantity: fmt.Sprintf("h_%d", n),
-		End:      end,
-		N:        n,
-		Values:   vals,
-		Errors:   errs,
-		Method: fmt.Sprintf("Newton iteration on series for k_A(h) = 1 with the colliding pole and zero cancelled; errors from runs at %d and %d bits",
-			p1, p2),
-		Prec: p2,
-	}
-	c.estimateRadius()
+	c.N = n
 	return c, nil
 }
 
@@ -156,26 +135,11 @@ func Dimension(q QPoint, n, digits int) (*Value, error) {
 	if err := checkN(n); err != nil {
 		return nil, err
 	}
-	if err := checkDigits(digits); err != nil {
-		return nil, err
-	}
-	p1 := bitsFor(digits, 0)
-	p2 := secondPrec(p1)
-	lo, err := dimensionExact(q, n, p1)
+	v, err := exactValue(fmt.Sprintf("h_%d", n), q, digits, "bisection between the pole and zero of k_A, Newton polish",
+		func(q QPoint, prec uint) (*big.Float, error) { return dimensionExact(q, n, prec) })
 	if err != nil {
 		return nil, err
 	}
-	hi, err := dimensionExact(q, n, p2)
-	if err != nil {
-		return nil, err
-	}
-	vals, errs := pairErrors([]*big.Float{lo}, []*big.Float{hi}, p1)
-	return &Value{
-		Quantity: fmt.Sprintf("h_%d", n),
-		Q:        q,
-		N:        n,
-		Value:    vals[0],
-		Err:      errs[0],
-		Method:   fmt.Sprintf("bisection between the pole and zero of k_A, Newton polish; errors from %d and %d bits", p1, p2),
-	}, nil
+	v.N = n
+	return v, nil
 }
