@@ -95,4 +95,11 @@ func setFlags(given map[string]bool) map[string]bool {
 	return out
 }
 
+// methodKey turns a method name into a JSON key: "1/q Pade" -> "x_pade",
+// "two-point Pade" -> "two_point_pade".
+func methodKey(m string) string {
+	m = strings.ReplaceAll(strings.ToLower(m), "1/q", "x")
+	return strings.NewReplacer(" ", "_", "-", "_", "/", "_").Replace(m)
+}
+
 var _ = fmt.Sprint

@@ -85,19 +85,25 @@ func reportOutput(q conformal.QPoint, rows []reportRow) *Output {
 	header = append(header, "published", "diff", "source")
 	tab := Table{Title: fmt.Sprintf("qbridge report at q = %s (script-J = 1)", q), Header: header}
 	var jrows []map[string]any
+	var failures []string
 	for _, r := range rows {
 		ref := r.r.Reference
+		for _, e := range r.r.Estimates {
+			if e.Value == nil {
+				failures = append(failures, fmt.Sprintf("%s %s: %s", r.r.Name, e.Method, e.Detail))
+			}
+		}
 		cells := []string{r.r.Name, fmtBig(ref.Value, refDigits(ref)), ref.Kind}
 		jr := map[string]any{"quantity": r.r.Name, "reference": fmtBig(ref.Value, refDigits(ref)), "reference_error": fmtErr(ref.Err), "reference_kind": ref.Kind}
 		for _, c := range reportColumns {
 			e, ok := r.Estimates[c]
 			if !ok || e.Value == nil {
-				cells = append(cells, "failed", "")
+				cells = append(cells, "failed (see notes)", "")
 				continue
 			}
 			diff := new(big.Float).Sub(e.Value, ref.Value)
-			cells = append(cells, fmtBig(e.Value, d), fmtBig(diff, 2))
-			jr[c] = map[string]string{"value": fmtBig(e.Value, d), "error": fmtErr(e.Err), "difference": fmtBig(diff, 3)}
+			cells = append(cells, fmtBig(e.Value, refDigits(ref)), fmtBig(diff, 2))
+			jr[methodKey(c)] = map[string]string{"value": fmtBig(e.Value, refDigits(ref)), "error": fmtErr(e.Err), "difference": fmtBig(diff, 3)}
 		}
 		if p := r.r.Published; p != nil {
 			diff := new(big.Float).Sub(p.Value, ref.Value)
@@ -105,8 +111,13 @@ func reportOutput(q conformal.QPoint, rows []reportRow) *Output {
 			if p.Digits > 0 {
 				pd = p.Digits
 			}
+			kind := "value at this q"
+			if p.Limit {
+				kind = "limiting formula"
+				pd = min(d, 6)
+			}
 			cells = append(cells, fmtBig(p.Value, pd), fmtBig(diff, 2), p.Source)
-			jr["published"] = map[string]string{"value": fmtBig(p.Value, pd), "difference": fmtBig(diff, 3), "source": p.Source}
+			jr["published"] = map[string]string{"value": fmtBig(p.Value, pd), "difference": fmtBig(diff, 3), "source": p.Source, "kind": kind}
 		} else {
 			cells = append(cells, "", "", "")
 		}
@@ -117,8 +128,10 @@ func reportOutput(q conformal.QPoint, rows []reportRow) *Output {
 		fmt.Sprintf("series of order %d at each end; eps = 1 - 2/q, x = 1/q", reportFlags.order),
 		"exact: dimensions by bracketed root finding of k_A(h) = 1 with Newton polish; b and S_0 from closed forms",
 		"Pade: best near-diagonal entry of the Pade table free of poles between the expansion point and q; two-point: rational function matching both series",
+		"published: a value printed for this q where one exists; rows marked limiting formula evaluate a large-q formula at this q (a check of the trend, not a value at this q)",
 		"diff = value - reference (the exact value, or the direct solver where no exact value exists); per-value errors are in --format json; b is resummed through b^q",
 	}
+	notes = append(notes, failures...)
 	return &Output{JSON: map[string]any{"q": jsonQ(q), "order": reportFlags.order, "rows": jrows}, Tables: []Table{tab}, Notes: notes}
 }
 

@@ -89,9 +89,9 @@ func resumTable(r *expansion.Resummation) (Table, map[string]any, []string) {
 	var methods, values, errs, diffs []string
 	notes := []string{r.Name + " " + ref.Kind + ": " + ref.Method}
 	for _, e := range r.Estimates {
-		v, er, d := "failed", "", ""
+		v, er, d := "failed (see notes)", "", ""
 		if e.Value != nil {
-			v, er, d = fmtBig(e.Value, opts.Digits), fmtErr(e.Err), fmtBig(r.Difference(e), 3)
+			v, er, d = fmtBig(e.Value, refDigits(ref)), fmtErr(e.Err), fmtBig(r.Difference(e), 3)
 		}
 		tab.Rows = append(tab.Rows, []string{e.Method, v, er, d})
 		methods = append(methods, e.Method)
@@ -121,8 +121,9 @@ func resumTable(r *expansion.Resummation) (Table, map[string]any, []string) {
 	return tab, js, notes
 }
 
-// refDigits caps the printed digits of a float64 reference (the direct
-// solver) at what float64 holds.
+// refDigits caps the printed digits where the reference and the estimates
+// come from float64 solves (the direct solver, the energy series) at what
+// float64 holds.
 func refDigits(ref *expansion.Reference) int {
 	if ref.Kind == "direct" {
 		return min(opts.Digits, 15)

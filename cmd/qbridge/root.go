@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"regexp"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -9,9 +10,11 @@ import (
 
 // opts holds the global flags shared by every command.
 var opts struct {
-	Digits int
-	Format string
-	Quiet  bool
+	Digits   int
+	Format   string
+	Quiet    bool
+	Wide     bool
+	CSVTable int
 }
 
 // Limits of the global --digits flag.
@@ -57,8 +60,39 @@ func init() {
 	pf.IntVar(&opts.Digits, "digits", 16, fmt.Sprintf("significant digits printed (%d..%d); commands that compute at arbitrary precision also work at this precision plus guard digits", minDigits, maxDigits))
 	pf.StringVar(&opts.Format, "format", "text", "output format: "+strings.Join(formats, ", "))
 	pf.BoolVar(&opts.Quiet, "quiet", false, "no progress reports on stderr")
-	// Flag-parsing errors are bad input: exit status 2.
+	pf.BoolVar(&opts.Wide, "wide", false, fmt.Sprintf("text tables at full width (default: split at %d columns)", maxTextWidth))
+	pf.IntVar(&opts.CSVTable, "csv-table", 1, "with --format csv, which table of the output to write (1 = the first; the others are listed on stderr)")
+	// Flag-parsing errors are bad input: exit status 2, in one plain line.
 	rootCmd.SetFlagErrorFunc(func(cmd *cobra.Command, err error) error {
-		return &usageError{err}
+		return usageErr("%s", flagMessage(err))
 	})
+}
+
+// flagValueError matches pflag's message for a value that does not parse.
+var flagValueError = regexp.MustCompile(`^invalid argument "(.*)" for "(.*?)" flag: (?:strconv\.Parse(\w+)|(.*))`)
+
+// flagMessage rewrites a flag-parsing error as one line that names the
+// flag, the value given and what is allowed, without parser internals.
+func flagMessage(err error) string {
+	m := flagValueError.FindStringSubmatch(err.Error())
+	if m == nil {
+		return err.Error()
+	}
+	value, flag := m[1], m[2]
+	if i := strings.Index(flag, "--"); i >= 0 {
+		flag = flag[i:]
+	}
+	want := "a valid value"
+	switch m[3] {
+	case "Int", "Uint":
+		want = "an integer such as 12"
+	case "Float":
+		want = "a number such as 4 or 2.5e3"
+	case "Bool":
+		want = "true or false"
+	}
+	if value == "" {
+		return fmt.Sprintf("%s needs a value: give %s", flag, want)
+	}
+	return fmt.Sprintf("%s %q: expected %s", flag, value, want)
 }

@@ -169,7 +169,7 @@ func coefficientsTable(c *conformal.Coefficients, end conformal.End, forms []*co
 		"quantity":     name,
 		"around":       end.String(),
 		"variable":     end.Variable(),
-		"coefficients": valueStrings(c.Values, c.Errors, opts.Digits),
+		"coefficients": valueStrings(c.Values, c.Errors, digitsFor(c.Prec)),
 		"errors":       errStrings(c.Errors),
 		"method":       c.Method,
 	}
@@ -182,7 +182,7 @@ func coefficientsTable(c *conformal.Coefficients, end conformal.End, forms []*co
 	}
 	var texts, texs []string
 	for k, v := range c.Values {
-		row := []string{strconv.Itoa(k), fmtValue(v, c.Errors[k], opts.Digits), fmtErr(c.Errors[k])}
+		row := []string{strconv.Itoa(k), fmtValue(v, c.Errors[k], digitsFor(c.Prec)), fmtErr(c.Errors[k])}
 		if withForms {
 			text, tex := "", ""
 			if f := forms[k]; f != nil {
@@ -212,14 +212,15 @@ func checkTable(ck *expansion.SeriesCheck, end conformal.End) (Table, map[string
 		Header: []string{"k", ck.Name + " fitted", "error", ck.Name + " exact", "(fitted-exact)/error"},
 	}
 	var sig []string
+	d := digitsFor(53) // fitted from float64 solves
 	for k := range ck.Fitted {
 		s := sigmaString(ck.Fitted[k], ck.Exact[k], ck.FittedErr[k])
 		sig = append(sig, s)
-		tab.Rows = append(tab.Rows, []string{strconv.Itoa(k), fmtValue(ck.Fitted[k], ck.FittedErr[k], opts.Digits), fmtErr(ck.FittedErr[k]), fmtBig(ck.Exact[k], opts.Digits), s})
+		tab.Rows = append(tab.Rows, []string{strconv.Itoa(k), fmtValue(ck.Fitted[k], ck.FittedErr[k], d), fmtErr(ck.FittedErr[k]), fmtBig(ck.Exact[k], d), s})
 	}
 	return tab, map[string]any{
 		"quantity":     ck.Name,
-		"coefficients": valueStrings(ck.Fitted, ck.FittedErr, opts.Digits),
+		"coefficients": valueStrings(ck.Fitted, ck.FittedErr, d),
 		"errors":       errStrings(ck.FittedErr),
 		"exact":        errFreeStrings(ck.Exact),
 		"sigma":        sig,
@@ -252,4 +253,13 @@ func init() {
 	f.BoolVar(&seriesFlags.closedForm, "closed-form", false, "identify closed forms of the coefficients by PSLQ (h_n, b, S_0)")
 	f.Float64Var(&seriesFlags.beta, "beta", 0, "inverse temperature beta*script-J (logZ only, required there)")
 	rootCmd.AddCommand(seriesCmd)
+}
+
+// digitsFor caps the printed digits at what a computation at prec bits
+// holds (15 for float64), so no value carries digits it does not have.
+func digitsFor(prec uint) int {
+	if prec == 0 {
+		return opts.Digits
+	}
+	return min(opts.Digits, max(int(float64(prec)*0.30103), 1))
 }

@@ -46,18 +46,30 @@ func init() {
 	rootCmd.AddCommand(solveCmd)
 }
 
+// solvePointsPerBeta is the grid density the automatic grid keeps
+// (numeric.DefaultPoints), and maxSolveBeta the largest beta it reaches.
+const (
+	solvePointsPerBeta = 32
+	maxSolveBeta       = float64(numeric.MaxPoints) / solvePointsPerBeta
+)
+
 // fmtErr64 formats an error estimate with two significant digits.
 func fmtErr64(x float64) string {
+	if x == 0 || math.IsNaN(x) || math.IsInf(x, 0) {
+		return notEstimated
+	}
 	return strconv.FormatFloat(math.Abs(x), 'e', 1, 64)
 }
 
 // checkSolveInput rejects bad flags with a one-line usage error.
-func checkSolveInput(q, beta float64, points int, tol float64, out string) error {
+func checkSolveInput(q, beta float64, points int, tol float64, out string, outGiven bool) error {
 	switch {
 	case math.IsNaN(q) || q < 2 || math.IsInf(q, 0):
 		return usageErr("--q must be a real number >= 2 (got %g)", q)
 	case math.IsNaN(beta) || beta <= 0 || math.IsInf(beta, 0):
 		return usageErr("--beta must be positive and finite (got %g)", beta)
+	case beta > maxSolveBeta:
+		return usageErr("--beta %g is beyond what one solve resolves: the finest grid has at most %d points and needs %d per unit of beta, so beta <= %g; for the T -> 0 limit use qbridge ground", beta, numeric.MaxPoints, solvePointsPerBeta, maxSolveBeta)
 	case math.IsNaN(tol) || tol <= 0:
 		return usageErr("--tol must be positive (got %g)", tol)
 	case tol >= 1e-2:
@@ -71,11 +83,17 @@ func checkSolveInput(q, beta float64, points int, tol float64, out string) error
 			return usageErr("--points %d is too coarse for beta %g: need at least 2 points per unit of beta (try %d)", points, beta, numeric.DefaultPoints(beta))
 		}
 	}
+	if outGiven && strings.TrimSpace(out) == "" {
+		return usageErr("--out needs a file name ending in .csv or .json")
+	}
 	if out != "" {
 		switch strings.ToLower(filepath.Ext(out)) {
 		case ".csv", ".json":
 		default:
 			return usageErr("--out %q: the file name must end in .csv or .json", out)
+		}
+		if fi, err := os.Stat(filepath.Dir(out)); err != nil || !fi.IsDir() {
+			return usageErr("--out %q: the directory %q does not exist", out, filepath.Dir(out))
 		}
 	}
 	return nil
@@ -83,7 +101,7 @@ func checkSolveInput(q, beta float64, points int, tol float64, out string) error
 
 func runSolve(cmd *cobra.Command, args []string) error {
 	fl := solveFlags
-	if err := checkSolveInput(fl.Q, fl.Beta, fl.Points, fl.Tol, fl.Out); err != nil {
+	if err := checkSolveInput(fl.Q, fl.Beta, fl.Points, fl.Tol, fl.Out, cmd.Flags().Changed("out")); err != nil {
 		return err
 	}
 	pr := newProgress(cmd, "solve")

@@ -1,8 +1,6 @@
 package main
 
 import (
-	"bytes"
-	"encoding/json"
 	"errors"
 	"math"
 	"strconv"
@@ -15,17 +13,17 @@ func TestSolveGroundBadInput(t *testing.T) {
 		{"solve", "--q", "1.5"},
 		{"solve", "--beta", "0"},
 		{"solve", "--beta", "-3"},
+		{"solve", "--beta", "1e9"},
 		{"solve", "--points", "1000"},
 		{"solve", "--tol", "0"},
 		{"solve", "--out", "g.txt"},
+		{"solve", "--out", ""},
+		{"solve", "--out", "/no/such/dir/g.csv"},
 		{"ground", "--q", "1"},
 		{"ground", "--beta-max", "-1"},
 	}
 	for _, args := range cases {
-		solveFlags.Q, solveFlags.Beta, solveFlags.Points, solveFlags.Tol, solveFlags.Out = 4, 10, 0, 1e-13, ""
-		groundFlags.Q, groundFlags.BetaMax, groundFlags.BetaMin, groundFlags.Steps = 4, 4000, 0, 16
-		rootCmd.SetArgs(args)
-		err := rootCmd.Execute()
+		_, err := runCLI(t, args...)
 		var ue *usageError
 		if !errors.As(err, &ue) {
 			t.Errorf("%v: error %v, want a usage error", args, err)
@@ -37,19 +35,8 @@ func TestSolveGroundBadInput(t *testing.T) {
 // log Z = 0.404584396859811 (quadrature of the exact density, PHYSICS sec. 5)
 // under the contract keys.
 func TestSolveJSON(t *testing.T) {
-	solveFlags.Q, solveFlags.Beta, solveFlags.Points, solveFlags.Tol, solveFlags.Out = 2, 1, 0, 1e-13, ""
-	var buf bytes.Buffer
-	rootCmd.SetOut(&buf)
-	rootCmd.SetArgs([]string{"solve", "--q", "2", "--beta", "1", "--format", "json"})
-	defer func() { opts.Format = "text"; rootCmd.SetOut(nil) }()
-	if err := rootCmd.Execute(); err != nil {
-		t.Fatal(err)
-	}
-	var js map[string]any
-	if err := json.Unmarshal(buf.Bytes(), &js); err != nil {
-		t.Fatal(err, buf.String())
-	}
-	for _, k := range []string{"q", "beta", "logZ", "logZ_err", "E", "E_err", "S", "S_err"} {
+	js := runJSON(t, "solve", "--q", "2", "--beta", "1")
+	for _, k := range []string{"q", "beta", "logZ", "logZ_error", "E", "E_error", "S", "S_error", "units", "command", "version"} {
 		if _, ok := js[k].(string); !ok {
 			t.Errorf("key %q missing or not a string", k)
 		}

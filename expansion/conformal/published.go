@@ -16,6 +16,9 @@ type Published struct {
 	Digits int
 	// Source names the publication (and formula, if any) Value comes from.
 	Source string
+	// Limit reports that Value is a limiting formula (large q) evaluated at
+	// this q, not a value published for this q.
+	Limit bool
 }
 
 // q = 4 operator dimensions h_0..h_5 as printed in Maldacena-Stanford 2016
@@ -51,7 +54,7 @@ func PublishedDimension(q QPoint, n int) (Published, bool) {
 	r := (2*nn*nn + nn + 1) / (2*nn*nn + nn - 1)
 	v := new(big.Float).SetPrec(64).Mul(x, big.NewFloat(2*r))
 	v.Add(v, big.NewFloat(2*nn+1))
-	return Published{Value: v, Digits: 0, Source: "large-q formula to O(1/q), MS 2016 arXiv:1604.07818"}, true
+	return Published{Value: v, Digits: 0, Limit: true, Source: "large-q limiting formula to O(1/q), MS 2016 arXiv:1604.07818, evaluated at this q"}, true
 }
 
 // PublishedS0 returns S_0(4) = 0.2324 (MS 2016, arXiv:1604.07818) at q = 4
@@ -69,5 +72,5 @@ func PublishedS0(q QPoint) Published {
 	v.Quo(v, big.NewFloat(4))
 	l := scalar.Ln2(64)
 	l.Quo(l, big.NewFloat(2))
-	return Published{Value: v.Sub(l, v), Source: "large-q formula log(2)/2 - pi^2/(4q^2), MS 2016 arXiv:1604.07818"}
+	return Published{Value: v.Sub(l, v), Limit: true, Source: "large-q limiting formula log(2)/2 - pi^2/(4q^2), MS 2016 arXiv:1604.07818, evaluated at this q"}
 }
