@@ -3,6 +3,7 @@ package conformal
 import (
 	"errors"
 	"fmt"
+	"math"
 	"math/big"
 
 	"qbridge/series"
@@ -83,8 +84,23 @@ func coarseEquation(end End, n int, s0 *big.Float) (*logEquation, error) {
 	return kernelEquation(formAt(end, n, s), coarsePrec)
 }
 
+// nearEnd is the distance in eps (or x) from an end below which h_n is
+// summed from its Taylor series there: the bracketing scan works in
+// coarse precision and cannot resolve roots that close to the end's
+// degenerate limit, while the series converges fast (radius about 1).
+const nearEnd = 1e-3
+
 // dimensionExact returns h_n(q) at prec bits.
 func dimensionExact(q QPoint, n int, prec uint) (*big.Float, error) {
+	if !q.Inf && !q.IsTwo() {
+		lim := big.NewFloat(nearEnd)
+		if t := q.Eps(prec); t.Cmp(lim) < 0 {
+			return dimensionNearEnd(AroundTwo, n, t, prec)
+		}
+		if t := q.X(prec); t.Cmp(lim) < 0 {
+			return dimensionNearEnd(AroundInf, n, t, prec)
+		}
+	}
 	var s *series.Series
 	var end End
 	var err error
@@ -135,11 +151,34 @@ func Dimension(q QPoint, n, digits int) (*Value, error) {
 	if err := checkN(n); err != nil {
 		return nil, err
 	}
-	v, err := exactValue(fmt.Sprintf("h_%d", n), q, digits, "bisection between the pole and zero of k_A, Newton polish",
+	v, err := exactValue(fmt.Sprintf("h_%d", n), q, digits, "bisection between the pole and zero of k_A, Newton polish (within 1e-3 of an end in eps or x: the Taylor series there, summed below the working precision)",
 		func(q QPoint, prec uint) (*big.Float, error) { return dimensionExact(q, n, prec) })
 	if err != nil {
 		return nil, err
 	}
 	v.N = n
 	return v, nil
+}
+
+// dimensionNearEnd sums the Taylor series of h_n around end at t (|t| <
+// nearEnd), to an order whose next term is below 2^-prec for a radius of
+// convergence no smaller than 1/2 (the nearest singularities of h_n lie
+// near |eps| = 1 and |x| = 1/3..1/2).
+func dimensionNearEnd(end End, n int, t *big.Float, prec uint) (*big.Float, error) {
+	tf, _ := t.Float64()
+	order := 2
+	if tf > 0 {
+		order = int(math.Ceil(float64(prec)*math.Ln2/(-math.Log(2*tf)))) + 2
+	}
+	order = min(max(order, 2), MaxOrder)
+	c, err := dimensionSeries(end, n, order, prec)
+	if err != nil {
+		return nil, err
+	}
+	acc := new(big.Float).SetPrec(prec)
+	for k := len(c) - 1; k >= 0; k-- {
+		acc.Mul(acc, t)
+		acc.Add(acc, c[k])
+	}
+	return acc, nil
 }
