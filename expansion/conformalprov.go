@@ -69,7 +69,11 @@ func (p conformalProvider) Resum(q conformal.QPoint, r Request) (*Resummation, e
 		return nil, err
 	}
 	n := max(r.N, 0)
-	cr, err := conformal.Resum(p.kind, q, n, r.Order, r.Digits)
+	// High-order rational approximants solve ill-conditioned linear systems:
+	// they need about one working digit per order (the two-point Pade at
+	// order 40 fails at 21 digits and works at 30).
+	digits := max(r.Digits, r.Order)
+	cr, err := conformal.Resum(p.kind, q, n, r.Order, digits)
 	if err != nil {
 		return nil, err
 	}
@@ -80,6 +84,9 @@ func (p conformalProvider) Resum(q conformal.QPoint, r Request) (*Resummation, e
 	}
 	if p.kind == conformal.QuantityB {
 		out.Notes = append(out.Notes, "b is resummed through b^q, analytic at both ends")
+	}
+	if digits > r.Digits {
+		out.Notes = append(out.Notes, fmt.Sprintf("worked at %d digits (raised from %d: the order-%d approximants need about one digit per order)", digits, r.Digits, r.Order))
 	}
 	switch p.kind {
 	case conformal.QuantityDims:
