@@ -161,3 +161,12 @@ type ExactProvider interface {
 	// error, from two working precisions.
 	Exact(q conformal.QPoint, r Request) (*conformal.Value, error)
 }
+
+// Coster is implemented by providers whose work can run long: it estimates
+// the wall time of a series request in seconds on one core of the
+// reference machine (2 cores, 2026), so that commands can refuse or warn
+// before starting.
+type Coster interface {
+	// SeriesSeconds estimates the time of Series(r).
+	SeriesSeconds(r Request) float64
+}

@@ -20,7 +20,11 @@ var seriesFlags struct {
 	n          string
 	closedForm bool
 	beta       float64
+	noLimit    bool
 }
+
+// maxSeconds is the longest a command runs without --no-time-limit.
+const maxSeconds = 60
 
 func parseEnd(text string) (conformal.End, error) {
 	switch text {
@@ -71,6 +75,15 @@ a form is printed only when it holds on 10 digits beyond those used to find it.`
 		digits := workDigits()
 		if seriesFlags.closedForm && digits < closedFormDigits {
 			digits = closedFormDigits // PSLQ needs digits to find a relation and 10 more to verify it
+		}
+		if c, ok := p.(expansion.Coster); ok && !seriesFlags.noLimit {
+			est := 0.0
+			for _, n := range ns {
+				est += c.SeriesSeconds(expansion.Request{N: n, End: end, Order: seriesFlags.order, Digits: digits})
+			}
+			if est > maxSeconds {
+				return usageErr("this series would take about %.0f s (order %d at %d digits, %d series; the cost grows as order^3): the limit is %d s; lower --order, or add --no-time-limit to run it anyway", est, seriesFlags.order, digits, len(ns), maxSeconds)
+			}
 		}
 		pr := newProgress(cmd, "series")
 		defer pr.Done()
@@ -252,6 +265,7 @@ func init() {
 	f.StringVar(&seriesFlags.n, "n", "1", "dimension index for h_n: a number, a list 1,3 or a range 1..6")
 	f.BoolVar(&seriesFlags.closedForm, "closed-form", false, "identify closed forms of the coefficients by PSLQ (h_n, b, S_0)")
 	f.Float64Var(&seriesFlags.beta, "beta", 0, "inverse temperature beta*script-J (logZ only, required there)")
+	f.BoolVar(&seriesFlags.noLimit, "no-time-limit", false, fmt.Sprintf("run even when the estimated time exceeds %d s", maxSeconds))
 	rootCmd.AddCommand(seriesCmd)
 }
 
