@@ -28,10 +28,11 @@ func BenchmarkSolveQ4Beta1000(b *testing.B) {
 	b.ReportMetric(float64(after.TotalAlloc-before.TotalAlloc)/float64(b.N)/1e6, "allocMB/op")
 }
 
-// BenchmarkGroundQuickQ4 is the default ladder and joint fits at q = 4.
-func BenchmarkGroundQuickQ4(b *testing.B) {
+// BenchmarkSolveGroundQ4 is the default ladder and joint fits at q = 4.
+func BenchmarkSolveGroundQ4(b *testing.B) {
+	c := conformalData(b, 4)
 	for i := 0; i < b.N; i++ {
-		if _, err := GroundQuick(4, nil); err != nil {
+		if _, err := SolveGround(GroundLadder(4, 0, nil), c); err != nil {
 			b.Fatal(err)
 		}
 	}

@@ -69,14 +69,12 @@ func TestEnergyDerivative(t *testing.T) {
 	}
 }
 
-// Fitted S_0 against Kitaev's exact formula (MS 2016 sec. 2.6) at q = 3, 4, 6:
-// the joint fit must hit it to 1e-9 and within three times its own error.
+// Fitted S_0 against Kitaev's exact formula (MS 2016 sec. 2.6; the value
+// from package expansion/conformal) at q = 3, 4, 6: the joint fit must hit
+// it to 1e-9 and within three times its own error.
 func TestFittedS0(t *testing.T) {
 	for _, q := range []float64{3, 4, 6} {
-		g, err := GroundQuick(q, nil)
-		if err != nil {
-			t.Fatal(err)
-		}
+		g := defaultGround(t, q)
 		if d := math.Abs(g.S0 - g.S0Exact); d > 1e-9 || d > 3*g.S0Err {
 			t.Errorf("q=%g: fitted S0 %.13g ± %.1e, exact %.13g", q, g.S0, g.S0Err, g.S0Exact)
 		}
@@ -86,7 +84,7 @@ func TestFittedS0(t *testing.T) {
 // The joint fit recovers the coefficients of an exact model of log Z and E
 // (synthetic data with the correction powers the fit uses, errors 1e-13).
 func TestFitJointRecoversModel(t *testing.T) {
-	h1 := FirstDimension(4)
+	h1 := conformalData(t, 4).H1
 	exps := append([]float64{1}, correctionPowers(h1)[:4]...)
 	coef := []float64{2 * math.Pi * math.Pi * 0.007, -0.3, 0.8, 2, -5}
 	e0, s0 := -0.0574, 0.2324
@@ -140,10 +138,7 @@ func TestRefineMatchesDirect(t *testing.T) {
 // MS 2016 / Garcia-Garcia-Verbaarschot arXiv:1610.03816), S_0 = 0.2324 and
 // alpha_S ~ 0.007 (Maldacena-Stanford arXiv:1604.07818).
 func TestPublishedQ4(t *testing.T) {
-	g, err := GroundQuick(4, nil)
-	if err != nil {
-		t.Fatal(err)
-	}
+	g := defaultGround(t, 4)
 	if math.Abs(g.E0-(-0.05746)) > 0.5e-5 {
 		t.Errorf("E0 = %.8g script-J, published -0.05746", g.E0)
 	}
@@ -155,40 +150,6 @@ func TestPublishedQ4(t *testing.T) {
 	}
 	if math.Abs(g.AlphaS-0.007) > 0.5e-3 {
 		t.Errorf("alpha_S = %.6g, published ~0.007", g.AlphaS)
-	}
-	// The exact S_0 at q = 4 rounds to the published 0.2324.
-	if math.Abs(ExactS0(4)-0.2324) > 0.5e-4 {
-		t.Errorf("exact S0(4) = %.8g", ExactS0(4))
-	}
-}
-
-// h_1 at q = 4 is 3.77 (MS 2016; Polchinski-Rosenhaus arXiv:1601.06768), and
-// k_A(h) = -(3/2) tan(pi(h - 1/2)/2)/(h - 1/2) at q = 4 (MS 2016).
-func TestFirstDimension(t *testing.T) {
-	if h := FirstDimension(4); math.Abs(h-3.77) > 0.005 {
-		t.Errorf("h1(4) = %.6g, published 3.77", h)
-	}
-	for _, h := range []float64{2.5, 3.3, 4.2} {
-		want := -1.5 * math.Tan(math.Pi*(h-0.5)/2) / (h - 0.5)
-		if got := kA(4, h); math.Abs(got-want) > 1e-12*math.Max(1, math.Abs(want)) {
-			t.Errorf("k_A(4, %g) = %.15g, closed form %.15g", h, got, want)
-		}
-	}
-	if got := kA(4, 2); math.Abs(got-1) > 1e-13 { // soft mode: k_A(2) = 1 (MS 2016)
-		t.Errorf("k_A(4, 2) = %.15g, want 1", got)
-	}
-}
-
-// ExactS0 against mpmath: mpmath.quad(lambda x: pi*(0.5-x)*tan(pi*x), [0, 1/4]) at q = 4.
-func TestExactS0(t *testing.T) {
-	cases := []struct{ q, want float64 }{
-		{4, 0.5*math.Ln2 - 0.11414974069457010},
-		{2, 0}, // PHYSICS sec. 4: S_0(q=2) = 0
-	}
-	for _, c := range cases {
-		if got := ExactS0(c.q); math.Abs(got-c.want) > 1e-14 {
-			t.Errorf("S0(%g) = %.16g, want %.16g", c.q, got, c.want)
-		}
 	}
 }
 

@@ -20,6 +20,15 @@
 //
 // Solve does one temperature, Ladder a geometric sequence of temperatures
 // with continuation, FitGround the low-temperature fits (one expansion of
-// log Z fitted to log Z and E jointly), GroundQuick the default ladder and
-// fits, ExactS0 the exact zero-temperature entropy for comparison.
+// log Z fitted to log Z and E jointly), SolveGround a ladder and its fits
+// (GroundLadder gives the default ladder). The fits take what they need of
+// the exact conformal data (h_1, and the exact S_0 for comparison) as
+// ConformalData from the caller; this package does not compute it.
+//
+// The package is also the float64 toolkit of the perturbative expansions
+// (package expansion/energy): the half-interval sine-transform grid
+// HalfGrid (with exact transforms of the jumps at tau = 0, closed-form
+// Matsubara tail sums), Richardson extrapolation in the grid spacing,
+// FitLinear (weighted least squares with error estimates), MedianSpread
+// (robust central value and spread) and Coeffs (numbers with error bars).
 package numeric

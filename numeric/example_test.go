@@ -3,7 +3,9 @@ package numeric_test
 import (
 	"fmt"
 	"math"
+	"math/big"
 
+	"qbridge/expansion/conformal"
 	"qbridge/numeric"
 )
 
@@ -19,9 +21,22 @@ func ExampleSolve() {
 	// Output: log Z = 0.404584396860, E = -0.108240186932, E + dlogZ/dbeta < 1e-10: true
 }
 
-func ExampleExactS0() {
-	fmt.Printf("%.10f\n", numeric.ExactS0(4))
-	// Output: 0.2324238496
+// conformalAt returns h_1 and the exact S_0 at q from package
+// expansion/conformal, the inputs of the low-temperature fits.
+func conformalAt(q float64) (numeric.ConformalData, error) {
+	qp := conformal.QPoint{Q: new(big.Float).SetFloat64(q)}
+	h, err := conformal.Dimension(qp, 1, 20)
+	if err != nil {
+		return numeric.ConformalData{}, err
+	}
+	s, err := conformal.S0(qp, 20)
+	if err != nil {
+		return numeric.ConformalData{}, err
+	}
+	var c numeric.ConformalData
+	c.H1, _ = h.Value.Float64()
+	c.S0Exact, _ = s.Value.Float64()
+	return c, nil
 }
 
 func ExampleFitGround() {
@@ -30,7 +45,12 @@ func ExampleFitGround() {
 		fmt.Println(err)
 		return
 	}
-	g, err := numeric.FitGround(4, lad)
+	c, err := conformalAt(4)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	g, err := numeric.FitGround(4, c, lad)
 	if err != nil {
 		fmt.Println(err)
 		return
@@ -39,10 +59,15 @@ func ExampleFitGround() {
 	// Output: E0 = -0.05745987854, S0 = 0.232423850 (exact 0.232423850), alpha_S = 0.007093
 }
 
-// GroundQuick is the default ladder and fit; at q = 2 (free fermions with the
+// SolveGround on the default ladder; at q = 2 (free fermions with the
 // semicircle density) E_0 = -2/(3 pi) and alpha_S = 1/(24 pi) exactly.
-func ExampleGroundQuick() {
-	g, err := numeric.GroundQuick(2, nil)
+func ExampleSolveGround() {
+	c, err := conformalAt(2)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	g, err := numeric.SolveGround(numeric.GroundLadder(2, 0, nil), c)
 	if err != nil {
 		fmt.Println(err)
 		return

@@ -19,28 +19,43 @@ import (
 type Fit struct {
 	BetaMin, BetaMax float64   // window of beta*script-J used
 	Exponents        []float64 // p_k, powers of T in log Z beyond -beta E_0 + S_0
-	E0, S0           float64
+	E0, S0           float64   // fitted ground-state energy and zero-temperature entropy
 	Coef             []float64 // c_k, same order as Exponents
 	E0Err, S0Err     float64   // statistical errors (scaled by sqrt(chi2/dof) when that exceeds 1)
-	AlphaS           float64
-	AlphaSErr        float64
-	Points           int     // ladder points in the window (each gives two data)
-	Chi2             float64 // chi^2 per degree of freedom with the solver's error estimates
-	Accepted         bool    // used for the central value and spread
+	AlphaS           float64   // Schwarzian coefficient, c_0/(2 pi^2)
+	AlphaSErr        float64   // its statistical error
+	Points           int       // ladder points in the window (each gives two data)
+	Chi2             float64   // chi^2 per degree of freedom with the solver's error estimates
+	Accepted         bool      // used for the central value and spread
 }
 
 // Ground is the low-temperature extraction: E_0, S_0 and alpha_S from joint
 // fits of log Z and E, with errors from the spread over fit windows and fit
 // orders plus the statistical error, and the exact S_0 beside.
 type Ground struct {
-	Q                 float64
-	H1                float64 // first operator dimension above 2, sets the correction exponents
-	E0, E0Err         float64
-	S0, S0Err         float64
-	AlphaS, AlphaSErr float64
-	S0Exact           float64 // ExactS0(Q)
-	Fits              []Fit
-	Ladder            []*Solution
+	Q                 float64     // interaction order
+	H1                float64     // first operator dimension above 2 (ConformalData.H1), sets the correction exponents
+	E0, E0Err         float64     // ground-state energy per fermion and its error
+	S0, S0Err         float64     // fitted zero-temperature entropy and its error
+	AlphaS, AlphaSErr float64     // Schwarzian coefficient and its error
+	S0Exact           float64     // exact S_0 (ConformalData.S0Exact; NaN when not known)
+	Fits              []Fit       // every fit tried, Accepted marking those used
+	Ladder            []*Solution // the ladder, in increasing beta
+}
+
+// ConformalData is what the low-temperature fits need from the exact
+// conformal data at q, computed by the caller (package expansion/conformal
+// has it to any precision).
+type ConformalData struct {
+	// H1 is h_1, the smallest operator dimension above the soft mode h = 2
+	// (the root of k_A(h) = 1 between 3 + 2/q and 5 - 2/q; 4 at q = 2): the
+	// corrections to log Z carry T^{h_1 - 1}, T^{h_1} and T^{2 h_1 - 2}.
+	// NaN leaves only the integer powers of T.
+	H1 float64
+	// S0Exact is the exact zero-temperature entropy, reported beside the
+	// fitted one for comparison (it does not enter the fits); NaN means not
+	// known.
+	S0Exact float64
 }
 
 // correctionPowers returns the powers p of T in the corrections to
@@ -71,18 +86,21 @@ func correctionPowers(h1 float64) []float64 {
 // in FitGround.
 var fitOrders = []int{3, 4, 5, 6}
 
-// FitGround fits log Z and E of the ladder jointly (see Fit) over windows
-// that drop the highest temperatures, windows that drop the lowest ones, and
-// the number of correction terms. Each quantity is the median over the
-// accepted fits (see below), its error half their spread plus their median
-// statistical error.
-func FitGround(q float64, ladder []*Solution) (*Ground, error) {
+// FitGround fits log Z and E of the ladder at q jointly (see Fit) over
+// windows that drop the highest temperatures, windows that drop the lowest
+// ones, and the number of correction terms, whose exponents follow from
+// c.H1. Each quantity is the median over the accepted fits (see below), its
+// error half their spread plus their median statistical error.
+func FitGround(q float64, c ConformalData, ladder []*Solution) (*Ground, error) {
+	if math.IsInf(c.H1, 0) || (!math.IsNaN(c.H1) && c.H1 <= 2) {
+		return nil, fmt.Errorf("%w: h_1 must be a dimension above 2 (or NaN), got %g", ErrInput, c.H1)
+	}
 	if len(ladder) < 8 {
 		return nil, fmt.Errorf("%w: need at least 8 ladder points for the fits, got %d", ErrInput, len(ladder))
 	}
 	pts := append([]*Solution(nil), ladder...)
 	sort.Slice(pts, func(i, j int) bool { return pts[i].Beta < pts[j].Beta })
-	g := &Ground{Q: q, H1: FirstDimension(q), S0Exact: ExactS0(q), Ladder: pts}
+	g := &Ground{Q: q, H1: c.H1, S0Exact: c.S0Exact, Ladder: pts}
 	corr := correctionPowers(g.H1)
 	n := len(pts)
 	step := max(1, n/8)
@@ -131,31 +149,17 @@ func FitGround(q float64, ladder []*Solution) (*Ground, error) {
 			e0Stat, s0Stat, aStat = append(e0Stat, f.E0Err), append(s0Stat, f.S0Err), append(aStat, f.AlphaSErr)
 		}
 	}
-	g.E0, g.E0Err = medianSpread(e0s)
-	g.S0, g.S0Err = medianSpread(s0s)
-	g.AlphaS, g.AlphaSErr = medianSpread(as)
+	g.E0, g.E0Err = MedianSpread(e0s)
+	g.S0, g.S0Err = MedianSpread(s0s)
+	g.AlphaS, g.AlphaSErr = MedianSpread(as)
 	// Add the typical statistical error of the accepted fits.
-	st, _ := medianSpread(e0Stat)
+	st, _ := MedianSpread(e0Stat)
 	g.E0Err += st
-	st, _ = medianSpread(s0Stat)
+	st, _ = MedianSpread(s0Stat)
 	g.S0Err += st
-	st, _ = medianSpread(aStat)
+	st, _ = MedianSpread(aStat)
 	g.AlphaSErr += st
 	return g, nil
-}
-
-// medianSpread returns the median and half the range.
-func medianSpread(v []float64) (float64, float64) {
-	if len(v) == 0 {
-		return math.NaN(), math.NaN()
-	}
-	s := append([]float64(nil), v...)
-	sort.Float64s(s)
-	med := s[len(s)/2]
-	if len(s)%2 == 0 {
-		med = (s[len(s)/2-1] + s[len(s)/2]) / 2
-	}
-	return med, (s[len(s)-1] - s[0]) / 2
 }
 
 // Error floors of the data: a few ulps accumulated over the grid sums.
@@ -164,82 +168,36 @@ const (
 	relFloorE    = 1e-14
 )
 
-// fitJoint is the weighted least-squares fit of Fit to log Z and E of win,
-// by QR on equilibrated columns; the statistical errors come from the
-// inverse of R.
+// fitJoint is the weighted least-squares fit of Fit to log Z and E of win
+// (FitLinear with the solver's error estimates, floored at a few ulps).
 func fitJoint(win []*Solution, exps []float64) (Fit, error) {
 	nw, np := len(win), len(exps)+2
 	a := mat.NewDense(2*nw, np, nil)
-	y := mat.NewVecDense(2*nw, nil)
+	y := make([]float64, 2*nw)
+	sigma := make([]float64, 2*nw)
 	for i, s := range win {
 		t := 1 / s.Beta
-		wz := 1 / math.Max(s.LogZErr, relFloorLogZ*math.Abs(s.LogZ))
-		we := 1 / math.Max(s.EErr, relFloorE*math.Abs(s.E))
-		a.Set(2*i, 0, -s.Beta*wz)
-		a.Set(2*i, 1, wz)
-		a.Set(2*i+1, 0, we)
+		a.Set(2*i, 0, -s.Beta)
+		a.Set(2*i, 1, 1)
+		a.Set(2*i+1, 0, 1)
 		for j, p := range exps {
-			a.Set(2*i, j+2, math.Pow(t, p)*wz)
-			a.Set(2*i+1, j+2, p*math.Pow(t, p+1)*we)
+			a.Set(2*i, j+2, math.Pow(t, p))
+			a.Set(2*i+1, j+2, p*math.Pow(t, p+1))
 		}
-		y.SetVec(2*i, s.LogZ*wz)
-		y.SetVec(2*i+1, s.E*we)
+		y[2*i], sigma[2*i] = s.LogZ, math.Max(s.LogZErr, relFloorLogZ*math.Abs(s.LogZ))
+		y[2*i+1], sigma[2*i+1] = s.E, math.Max(s.EErr, relFloorE*math.Abs(s.E))
 	}
-	scale := make([]float64, np)
-	for j := range scale {
-		scale[j] = mat.Norm(a.ColView(j), 2)
-		for i := 0; i < 2*nw; i++ {
-			a.Set(i, j, a.At(i, j)/scale[j])
-		}
+	lf, err := FitLinear(a, y, sigma)
+	if err != nil {
+		return Fit{}, fmt.Errorf("numeric: joint fit with exponents %v over beta %g..%g failed: %w", exps, win[0].Beta, win[nw-1].Beta, err)
 	}
-	fail := func(err error) (Fit, error) {
-		return Fit{}, fmt.Errorf("numeric: joint fit with exponents %v over beta %g..%g failed: %v", exps, win[0].Beta, win[nw-1].Beta, err)
-	}
-	var qr mat.QR
-	qr.Factorize(a)
-	var x mat.VecDense
-	if err := qr.SolveVecTo(&x, false, y); err != nil {
-		return fail(err)
-	}
-	var r mat.VecDense
-	r.MulVec(a, &x)
-	r.SubVec(&r, y)
-	dof := 2*nw - np
-	chi2 := mat.Dot(&r, &r) / float64(dof)
-	var rd mat.Dense
-	qr.RTo(&rd)
-	upper := make([]float64, np*np)
-	for i := 0; i < np; i++ {
-		for j := i; j < np; j++ {
-			upper[i*np+j] = rd.At(i, j)
-		}
-	}
-	var rinv mat.TriDense
-	if err := rinv.InverseTri(mat.NewTriDense(np, mat.Upper, upper)); err != nil {
-		return fail(err)
-	}
-	// cov = R^{-1} R^{-T}, in the scaled variables.
-	sig := func(j int) float64 {
-		s := 0.0
-		for k := j; k < np; k++ {
-			v := rinv.At(j, k)
-			s += v * v
-		}
-		return math.Sqrt(s*math.Max(1, chi2)) / scale[j]
-	}
-	coef := make([]float64, np)
-	for j := range coef {
-		coef[j] = x.AtVec(j) / scale[j]
-	}
+	coef, sig := lf.Values, lf.Errors
 	f := Fit{
-		BetaMin: win[0].Beta, BetaMax: win[nw-1].Beta, Exponents: exps, Points: nw, Chi2: chi2,
+		BetaMin: win[0].Beta, BetaMax: win[nw-1].Beta, Exponents: exps, Points: nw, Chi2: lf.Chi2,
 		E0: coef[0], S0: coef[1], Coef: coef[2:],
-		E0Err: sig(0), S0Err: sig(1),
+		E0Err: sig[0], S0Err: sig[1],
 	}
 	f.AlphaS = f.Coef[0] / (2 * math.Pi * math.Pi)
-	f.AlphaSErr = sig(2) / (2 * math.Pi * math.Pi)
-	if math.IsNaN(f.E0) || math.IsNaN(f.S0) || math.IsNaN(f.AlphaS) {
-		return fail(fmt.Errorf("NaN coefficients"))
-	}
+	f.AlphaSErr = sig[2] / (2 * math.Pi * math.Pi)
 	return f, nil
 }

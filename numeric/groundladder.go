@@ -1,17 +1,18 @@
 package numeric
 
-// Defaults of the ladder behind GroundQuick (and the ground command). The
-// ladder starts at GroundBetaMax/GroundBetaSpan.
+// Defaults of the low-temperature ladder (GroundLadder): beta*script-J from
+// 25 to 4000, 24 solves with 64 points per unit of beta, residual 1e-14.
 const (
-	GroundBetaSpan      = 160.0
-	GroundBetaMax       = 4000.0
-	GroundSteps         = 24
-	GroundPointsPerBeta = 64.0
-	GroundTol           = 1e-14
+	GroundBetaSpan      = 160.0  // BetaMax/BetaMin
+	GroundBetaMax       = 4000.0 // largest beta*script-J
+	GroundSteps         = 24     // number of solves
+	GroundPointsPerBeta = 64.0   // grid points per unit of beta on the finest grid
+	GroundTol           = 1e-14  // residual tolerance of every solve
 )
 
-// GroundLadder returns the ladder parameters GroundQuick uses at q, ending at
-// betaMax (0 means GroundBetaMax) and starting at betaMax/GroundBetaSpan.
+// GroundLadder returns the default low-temperature ladder at q, ending at
+// betaMax (0 means GroundBetaMax) and starting at betaMax/GroundBetaSpan,
+// with progress reports to progress (may be nil).
 func GroundLadder(q, betaMax float64, progress func(float64, string)) LadderParams {
 	if betaMax == 0 {
 		betaMax = GroundBetaMax
@@ -22,14 +23,13 @@ func GroundLadder(q, betaMax float64, progress func(float64, string)) LadderPara
 	}
 }
 
-// GroundQuick runs the default low-temperature ladder at q (beta*script-J
-// from 25 to 4000, 24 solves with 64 points per unit of beta, residual
-// 1e-14) and the joint fits of FitGround. At q = 4 it takes a few seconds
-// on one core and gives E_0 to about 13 digits.
-func GroundQuick(q float64, progress func(frac float64, detail string)) (*Ground, error) {
-	lad, err := Ladder(GroundLadder(q, 0, progress))
+// SolveGround runs the ladder p (GroundLadder gives the defaults) and the
+// joint fits of FitGround with the conformal data c. With the defaults at
+// q = 4 it takes a few seconds on one core and gives E_0 to about 13 digits.
+func SolveGround(p LadderParams, c ConformalData) (*Ground, error) {
+	lad, err := Ladder(p)
 	if err != nil {
 		return nil, err
 	}
-	return FitGround(q, lad)
+	return FitGround(p.Q, c, lad)
 }

@@ -8,14 +8,16 @@ import (
 // LadderParams selects a ladder of solves at geometrically spaced beta,
 // each started from the previous one (continuation in beta).
 type LadderParams struct {
-	Q                float64
+	Q                float64 // interaction order, real, >= 2
 	BetaMin, BetaMax float64 // range of beta*script-J, 0 < BetaMin < BetaMax
 	Steps            int     // number of beta values, >= 2
 	// PointsPerBeta sets each grid: the finest grid has the smallest power of
 	// two >= PointsPerBeta*beta points (0 means 32, as DefaultPoints).
 	PointsPerBeta float64
 	Tol           float64 // 0 means DefaultTol
-	Progress      func(frac float64, detail string)
+	// Progress, when not nil, receives the fraction of the ladder done and a
+	// short status.
+	Progress func(frac float64, detail string)
 }
 
 // Ladder solves at Steps values of beta from BetaMin to BetaMax (geometric),

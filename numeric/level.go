@@ -7,7 +7,7 @@ import (
 
 // Level is the converged Schwinger-Dyson solution on one uniform grid.
 type Level struct {
-	Q, Beta    float64
+	Q, Beta    float64   // interaction order and inverse temperature beta*script-J
 	Points     int       // grid points on [0, beta): 2m, with m points on (0, beta/2]
 	Tau        []float64 // tau_k = k beta/Points, k = 0..Points/2
 	G          []float64 // G(tau_k); G(beta - tau) = G(tau)
@@ -29,8 +29,11 @@ const (
 // solveLevel solves the SD equations on a grid of 2m points, starting from
 // warm (may be nil, or on any grid, q or beta).
 func solveLevel(q, beta float64, m int, tol float64, warm *Level, progress func(float64, string)) (*Level, error) {
-	gr := newGrid(q, beta, m)
-	s := newSDMap(gr)
+	gr, err := NewHalfGrid(beta, m)
+	if err != nil {
+		return nil, err
+	}
+	s := newSDMap(q, gr)
 	x := make([]float64, m)
 	if warm != nil {
 		warmStart(s, x, warm)
@@ -130,11 +133,12 @@ func (s *sdMap) thermo(x, work []float64) (logZ, e float64) {
 	c := math.Sqrt(s.sigmaB(gp0)*s.sigmaB(gp0) + sig0)
 	sum := 0.0
 	for n, sf := range s.buf {
-		w := s.freq(n)
-		sigma := sf + sig0*coshRatioFreq(s.b, w)
+		w := s.Freq(n)
+		sigma := sf + sig0*CoshRatioFreq(s.b, w)
 		sum += math.Log1p(sigma/w) - 2*sig0/(w*w+c*c)
 	}
-	sum += sig0 * s.beta * math.Tanh(c*s.beta/2) / (2 * c)
+	s1, _ := MatsubaraTails(s.beta, c)
+	sum += sig0 * s1
 	logZ = 0.5*math.Ln2 + sum + 0.5*s.beta*(1-1/q)*gp0
 	return logZ, gp0 / q
 }

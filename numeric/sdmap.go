@@ -12,7 +12,8 @@ import "math"
 // extension is smooth to third order, so the discrete sine transforms lose no digits
 // to the jump at tau = 0.
 type sdMap struct {
-	*grid
+	*HalfGrid
+	q       float64   // interaction order
 	j2      float64   // J^2 = 2^{q-1}/q in units script-J = 1
 	a       float64   // model parameter of G
 	gm      []float64 // model coefficients of g
@@ -22,14 +23,13 @@ type sdMap struct {
 	buf     []float64 // G(tau_k), then the Sigma remainder in time and frequency
 }
 
-func newSDMap(gr *grid) *sdMap {
-	q := gr.q
-	s := &sdMap{grid: gr, j2: math.Pow(2, q-1) / q, a: math.Sqrt(2 / q)}
+func newSDMap(q float64, gr *HalfGrid) *sdMap {
+	s := &sdMap{HalfGrid: gr, q: q, j2: math.Pow(2, q-1) / q, a: math.Sqrt(2 / q)}
 	m := gr.m
 	s.gm = make([]float64, m)
 	s.gmTime = make([]float64, m)
 	for n := range s.gm {
-		w := gr.freq(n)
+		w := gr.Freq(n)
 		s.gm[n] = w / (w*w + s.a*s.a)
 	}
 	gr.addCoshRatio(s.gmTime, s.a, 0.5)
@@ -122,7 +122,7 @@ func (s *sdMap) apply(rNew, r []float64) float64 {
 	s.toFreq(s.buf, s.buf)
 	b2 := s.b * s.b
 	for n, sf := range s.buf {
-		w := s.freq(n)
+		w := s.Freq(n)
 		sigma := sf + sig0*2*w/(w*w+b2)
 		rNew[n] = 1/(w+sigma) - s.gm[n]
 	}

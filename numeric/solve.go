@@ -59,15 +59,15 @@ type Thermo struct {
 // Solution is an extrapolated solve: thermodynamics with errors, the check of
 // E against -d log Z / d beta, and the per-grid solutions.
 type Solution struct {
-	Q, Beta float64
-	Thermo
+	Q, Beta float64 // interaction order and inverse temperature beta*script-J
+	Thermo          // the extrapolated thermodynamics with errors
 	// DLogZ is -d log Z/d beta from a four-point difference on every grid,
 	// extrapolated like E; Mismatch = E - DLogZ should vanish within MismatchErr.
 	DLogZ, Mismatch, MismatchErr float64
 	Checked                      bool     // false when SkipCheck was set
 	Levels                       []*Level // finest first
 	Iterations                   int      // total over all grids and checks
-	Tol                          float64
+	Tol                          float64  // residual tolerance of the iterations
 }
 
 // ValidatePoints reports whether n is a supported number of grid points.
@@ -175,8 +175,8 @@ func Solve(p Params) (*Solution, error) {
 		return v
 	}
 	var eTol float64
-	sol.LogZ, sol.LogZErr = richardson(pick(func(l *Level) float64 { return l.LogZ }))
-	sol.E, sol.EErr = richardson(pick(func(l *Level) float64 { return l.E }))
+	sol.LogZ, sol.LogZErr = Richardson(pick(func(l *Level) float64 { return l.LogZ }), richardsonPowers)
+	sol.E, sol.EErr = Richardson(pick(func(l *Level) float64 { return l.E }), richardsonPowers)
 	// The energy is not variational: a residual tol shifts it by about tol |E|.
 	eTol = p.Tol * math.Abs(sol.E)
 	sol.EErr += eTol
@@ -185,7 +185,7 @@ func Solve(p Params) (*Solution, error) {
 	sol.SErr = sol.LogZErr + p.Beta*sol.EErr
 	if !p.SkipCheck {
 		var dErr float64
-		sol.DLogZ, dErr = richardson(dlz)
+		sol.DLogZ, dErr = Richardson(dlz, richardsonPowers)
 		sol.Mismatch = sol.E - sol.DLogZ
 		sol.MismatchErr = sol.EErr + dErr
 	}
@@ -270,26 +270,8 @@ func derivative(lv *Level, tol float64) (float64, int, error) {
 	return -deriv, its, nil
 }
 
-// richardsonPowers are the powers of h removed one by one.
+// richardsonPowers are the powers of h that Solve removes one by one: the
+// discretisation is fourth order (tails subtracted analytically,
+// end-corrected trapezoid) and the truncated Matsubara sum of log Z adds an
+// h^5 term.
 var richardsonPowers = []float64{4, 5, 6, 7}
-
-// richardson extrapolates values on grids h, 2h, 4h, ... (finest first) to
-// h = 0 assuming an error series in richardsonPowers (the discretisation is
-// fourth order: tails subtracted analytically, end-corrected trapezoid; the
-// truncated Matsubara sum of log Z adds an h^5 term).
-// The error estimate is the size of the last correction applied.
-func richardson(v []float64) (val, err float64) {
-	if len(v) == 1 {
-		return v[0], math.Abs(v[0]) * 1e-3
-	}
-	t := append([]float64(nil), v...)
-	last, prev := 0.0, t[0]
-	for k := 1; k < len(v); k++ {
-		f := math.Pow(2, richardsonPowers[min(k-1, len(richardsonPowers)-1)])
-		for i := 0; i+k < len(v); i++ {
-			t[i] += (t[i] - t[i+1]) / (f - 1)
-		}
-		last, prev = t[0]-prev, t[0]
-	}
-	return t[0], math.Abs(last)
-}

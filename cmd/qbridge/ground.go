@@ -8,6 +8,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"qbridge/expansion/energy"
 	"qbridge/numeric"
 )
 
@@ -62,15 +63,11 @@ func runGround(cmd *cobra.Command, args []string) error {
 		return usageErr("--beta-min must be positive and below --beta-max (got %g)", fl.BetaMin)
 	}
 	lp.Steps = fl.Steps
-	lad, err := numeric.Ladder(lp)
+	g, err := energy.Ground(lp)
 	pr.Done()
 	if errors.Is(err, numeric.ErrInput) {
 		return usageErr("%v", err)
 	}
-	if err != nil {
-		return err
-	}
-	g, err := numeric.FitGround(fl.Q, lad)
 	if err != nil {
 		return err
 	}
@@ -139,7 +136,7 @@ func groundOutput(g *numeric.Ground) *Output {
 			fmt.Sprintf("ladder of %d solves, beta*script-J from %s to %s, each Richardson-extrapolated in the grid spacing", len(g.Ladder), fmtFloat(g.Ladder[0].Beta, 6), fmtFloat(g.Ladder[len(g.Ladder)-1].Beta, 6)),
 			fmt.Sprintf("log Z = -beta E_0 + S_0 + 2 pi^2 alpha_S T + corrections T^p, p from {2, h_1 - 1, 3, h_1, 4, 2 h_1 - 2, 5, 6}, h_1 = %s", fmtFloat(g.H1, 8)),
 			"value = median of accepted fits, error = half their spread + median statistical error",
-			"S_0 (exact) = (1/2) log 2 - int_0^{1/q} pi (1/2 - x) tan(pi x) dx by Gauss-Legendre quadrature",
+			"S_0 (exact) = (1/2) log 2 - int_0^{1/q} pi (1/2 - x) tan(pi x) dx and h_1 (root of k_A(h) = 1) from the exact conformal data (package expansion/conformal)",
 			"units script-J = 1",
 		},
 	}

@@ -4,25 +4,24 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"qbridge/expansion/conformal"
 
+	"qbridge/expansion/conformal"
+	"qbridge/numeric"
 	"qbridge/series"
 )
 
-// ErrInput marks errors caused by invalid parameters (bad order, beta, grid).
-var ErrInput = errors.New("invalid input")
+// ErrInput marks errors caused by invalid parameters (bad order, beta,
+// grid). It is numeric.ErrInput, so that errors of the direct solver passed
+// on by this package match it too.
+var ErrInput = numeric.ErrInput
 
 // ErrOrder marks an order the grid or the arithmetic cannot support.
 var ErrOrder = errors.New("order not supported")
 
 // Coeffs is a truncated power series with an error bar on every coefficient:
-// Values[k] is the coefficient of t^k and Errors[k] its uncertainty.
-type Coeffs struct {
-	Values, Errors []float64
-}
-
-// Len is the number of coefficients.
-func (c Coeffs) Len() int { return len(c.Values) }
+// Values[k] is the coefficient of t^k and Errors[k] its uncertainty (the
+// float64 toolkit's numeric.Coeffs).
+type Coeffs = numeric.Coeffs
 
 // Variables of the expansions.
 const (
@@ -34,11 +33,11 @@ const (
 // FiniteBeta holds log Z and E at one inverse temperature as series in
 // Variable, extrapolated to zero grid spacing.
 type FiniteBeta struct {
-	Beta     float64
-	Variable string
-	LogZ, E  Coeffs
-	Points   int // grid points on [0, beta) of the finest grid
-	Levels   int // grids used in the Richardson extrapolation
+	Beta     float64 // inverse temperature beta*script-J
+	Variable string  // VarDelta, VarEps or VarX
+	LogZ, E  Coeffs  // log Z and E per fermion, coefficient by coefficient
+	Points   int     // grid points on [0, beta) of the finest grid
+	Levels   int     // grids used in the Richardson extrapolation
 }
 
 // DeltaParams selects an expansion around q = 2 at fixed beta.
@@ -79,10 +78,11 @@ func DefaultDeltaPoints(beta float64) int {
 	return n
 }
 
-// deltaRichardsonPowers: the discretisation error is O(h^4) (model
-// functions carry the jumps, end-corrected trapezoid), then h^5 from the
-// truncated Matsubara sum and h^6.
-var deltaRichardsonPowers = []float64{4, 5, 6}
+// richardsonPowers are the powers of the grid spacing removed by the
+// extrapolation of both expansions: the discretisation error is O(h^4)
+// (model functions carry the jumps, end-corrected trapezoid), then h^5 from
+// the truncated Matsubara sum and h^6.
+var richardsonPowers = []float64{4, 5, 6}
 
 func (p *DeltaParams) validate() error {
 	switch {
@@ -92,15 +92,32 @@ func (p *DeltaParams) validate() error {
 		return fmt.Errorf("%w: order must be >= 0, got %d", ErrInput, p.Order)
 	case p.Order > MaxDeltaOrder:
 		return fmt.Errorf("%w: order %d is above the maximum %d of the q = 2 expansion (cost and memory grow like order x points)", ErrOrder, p.Order, MaxDeltaOrder)
-	case p.Levels < 0 || p.Levels > 5:
-		return fmt.Errorf("%w: levels must be between 1 and 5, got %d", ErrInput, p.Levels)
 	case p.Variable != "" && p.Variable != VarDelta && p.Variable != VarEps:
 		return fmt.Errorf("%w: the q = 2 expansion variable is %q or %q, got %q", ErrInput, VarDelta, VarEps, p.Variable)
 	}
-	if p.Points != 0 && (p.Points < MinGridPoints || p.Points > MaxGridPoints || p.Points&(p.Points-1) != 0) {
-		return fmt.Errorf("%w: points must be a power of two between %d and %d, got %d", ErrInput, MinGridPoints, MaxGridPoints, p.Points)
-	}
 	return nil
+}
+
+// gridLevels checks the finest grid size (0 means DefaultDeltaPoints(beta))
+// and the number of Richardson levels (0 means 3) of an expansion, and
+// returns them filled in.
+func gridLevels(beta float64, points, levels int) (int, int, error) {
+	switch {
+	case levels < 0 || levels > 5:
+		return 0, 0, fmt.Errorf("%w: levels must be between 1 and 5, got %d", ErrInput, levels)
+	case points != 0 && (points < MinGridPoints || points > MaxGridPoints || points&(points-1) != 0):
+		return 0, 0, fmt.Errorf("%w: points must be a power of two between %d and %d, got %d", ErrInput, MinGridPoints, MaxGridPoints, points)
+	}
+	if points == 0 {
+		points = DefaultDeltaPoints(beta)
+	}
+	if levels == 0 {
+		levels = 3
+	}
+	if points>>(levels-1) < MinGridPoints/2 {
+		return 0, 0, fmt.Errorf("%w: %d points leave too few on the coarsest of %d grids", ErrInput, points, levels)
+	}
+	return points, levels, nil
 }
 
 // DeltaExpand returns log Z and E at p.Beta as series in delta = q - 2 up to
@@ -114,39 +131,48 @@ func DeltaExpand(p DeltaParams) (*FiniteBeta, error) {
 	if err := p.validate(); err != nil {
 		return nil, err
 	}
-	if p.Points == 0 {
-		p.Points = DefaultDeltaPoints(p.Beta)
-	}
-	if p.Levels == 0 {
-		p.Levels = 3
-	}
-	if p.Points>>(p.Levels-1) < MinGridPoints/2 {
-		return nil, fmt.Errorf("%w: %d points leave too few on the coarsest of %d grids", ErrInput, p.Points, p.Levels)
+	var err error
+	if p.Points, p.Levels, err = gridLevels(p.Beta, p.Points, p.Levels); err != nil {
+		return nil, err
 	}
 	if p.Variable == "" {
 		p.Variable = VarDelta
 	}
-	levels := make([]*deltaLevel, p.Levels)
-	for l := range levels {
-		lv, err := solveDeltaLevel(p.Beta, p.Points>>(l+1), p.Order)
+	return onGrids(p.Beta, p.Points, p.Levels, p.Order, p.Variable, func(m int) ([]float64, []float64, error) {
+		lv, err := solveDeltaLevel(p.Beta, m, p.Order)
 		if err != nil {
+			return nil, nil, err
+		}
+		if p.Variable != VarEps {
+			return lv.logZ, lv.e, nil
+		}
+		lz, err := substitute(lv.logZ, conformal.DeltaToEps)
+		if err != nil {
+			return nil, nil, err
+		}
+		e, err := substitute(lv.e, conformal.DeltaToEps)
+		return lz, e, err
+	})
+}
+
+// onGrids runs solve on the grids of points/2, points/4, ... half-interval
+// points (levels of them, finest first), Richardson-extrapolates the log Z
+// and E coefficients it returns to zero spacing, and refuses an order the
+// grid cannot resolve (checkResolved).
+func onGrids(beta float64, points, levels, order int, variable string, solve func(m int) (logZ, e []float64, err error)) (*FiniteBeta, error) {
+	lz := make([][]float64, levels)
+	e := make([][]float64, levels)
+	for l := range lz {
+		var err error
+		if lz[l], e[l], err = solve(points >> (l + 1)); err != nil {
 			return nil, err
 		}
-		if p.Variable == VarEps {
-			if lv.logZ, err = substitute(lv.logZ, conformal.DeltaToEps); err != nil {
-				return nil, err
-			}
-			if lv.e, err = substitute(lv.e, conformal.DeltaToEps); err != nil {
-				return nil, err
-			}
-		}
-		levels[l] = lv
 	}
-	n := p.Order + 1
-	out := &FiniteBeta{Beta: p.Beta, Variable: p.Variable, Points: p.Points, Levels: p.Levels}
-	out.LogZ = extrapolate(levels, n, func(l *deltaLevel) []float64 { return l.logZ })
-	out.E = extrapolate(levels, n, func(l *deltaLevel) []float64 { return l.e })
-	if err := checkResolved(out.E, p.Order, p.Beta/float64(p.Points)); err != nil {
+	n := order + 1
+	out := &FiniteBeta{Beta: beta, Variable: variable, Points: points, Levels: levels}
+	out.LogZ = extrapolateRows(lz, n)
+	out.E = extrapolateRows(e, n)
+	if err := checkResolved(out.E, order, beta/float64(points)); err != nil {
 		return nil, err
 	}
 	return out, nil
@@ -164,14 +190,25 @@ func checkResolved(c Coeffs, order int, h float64) error {
 	return nil
 }
 
-func extrapolate(levels []*deltaLevel, n int, f func(*deltaLevel) []float64) Coeffs {
+// extrapolateRows Richardson-extrapolates the first n coefficients one by
+// one in the grid spacing (numeric.Richardson with richardsonPowers); rows
+// are the grids, finest first. Each error bar is the last correction plus
+// a round-off floor of 2^-44 times the largest value on the grids (on one
+// grid, numeric.Richardson's nominal 1e-3 relative).
+func extrapolateRows(rows [][]float64, n int) Coeffs {
 	c := Coeffs{Values: make([]float64, n), Errors: make([]float64, n)}
-	v := make([]float64, len(levels))
+	v := make([]float64, len(rows))
 	for k := 0; k < n; k++ {
-		for i, l := range levels {
-			v[i] = f(l)[k]
+		floor := 0.0
+		for i, r := range rows {
+			v[i] = r[k]
+			floor = math.Max(floor, math.Abs(r[k]))
 		}
-		c.Values[k], c.Errors[k] = richardson(v, deltaRichardsonPowers)
+		val, err := numeric.Richardson(v, richardsonPowers)
+		if len(v) > 1 {
+			err += floor * 0x1p-44
+		}
+		c.Values[k], c.Errors[k] = val, err
 	}
 	return c
 }

@@ -3,6 +3,8 @@ package energy
 import (
 	"fmt"
 	"math"
+
+	"qbridge/numeric"
 )
 
 // deltaLevel is the expansion of the Schwinger-Dyson solution in delta = q - 2
@@ -53,7 +55,11 @@ func couplingSeries(n int) []float64 {
 // zero: it involves only G_0..G_{k-1}.
 func solveDeltaLevel(beta float64, m, order int) (*deltaLevel, error) {
 	n := order + 1
-	gr := newHalfGrid(beta, m)
+	gr, err := numeric.NewHalfGrid(beta, m)
+	if err != nil {
+		return nil, err
+	}
+	freqs := gr.Freqs()
 	invq := fsGeometric(2, 1, n)
 	j2 := couplingSeries(n)
 	G := make([][]float64, n)   // G_k(tau)
@@ -67,15 +73,17 @@ func solveDeltaLevel(beta float64, m, order int) (*deltaLevel, error) {
 	in := make([]float64, n)    // int_0^{beta/2} (G Sigma)_k
 	// Order 0: the semicircle, g_0 = (sqrt(w^2+4) - w)/2 = 2/(w + sqrt(w^2+4)).
 	g[0] = make([]float64, m)
-	for i, w := range gr.w {
+	for i, w := range freqs {
 		g[0][i] = 2 / (w + math.Sqrt(w*w+4))
 	}
 	G[0] = make([]float64, m)
-	gr.toTime(G[0], g[0], 0.5, invq[0])
+	if err := gr.ToTimeJump(G[0], g[0], 0.5, invq[0]); err != nil {
+		return nil, err
+	}
 	L[0] = make([]float64, m)
 	for i, v := range G[0] {
 		if !(v > 0) {
-			return nil, fmt.Errorf("energy: G_0 not positive at tau=%g on %d points (beta=%g): grid too coarse", gr.tau[i], 2*m, beta)
+			return nil, fmt.Errorf("energy: G_0 not positive at tau=%g on %d points (beta=%g): grid too coarse", gr.Tau(i+1), 2*m, beta)
 		}
 		L[0][i] = math.Log(v)
 	}
@@ -83,7 +91,7 @@ func solveDeltaLevel(beta float64, m, order int) (*deltaLevel, error) {
 	P[0] = append([]float64(nil), G[0]...)
 	Sig[0] = scaled(P[0], j2[0])
 	sig[0] = append([]float64(nil), g[0]...)
-	damp := 1 / (1 + gr.h*gr.h/6)
+	damp := 1 / (1 + gr.H()*gr.H()/6)
 	prod := make([]float64, m)
 	integral := func(k int) {
 		for i := range prod {
@@ -95,7 +103,7 @@ func solveDeltaLevel(beta float64, m, order int) (*deltaLevel, error) {
 		}
 		// (G Sigma)'(0+) = G'(0+) = -2 int: the Euler-Maclaurin h^2 term is
 		// -(h^2/6) int, hence the factor 1/(1 + h^2/6).
-		in[k] = gr.trapezoid(0.5*invq[k], prod) * damp
+		in[k] = gr.Trapezoid(0.5*invq[k], prod) * damp
 		p[k] = -2 * in[k]
 	}
 	integral(0)
@@ -122,7 +130,9 @@ func solveDeltaLevel(beta float64, m, order int) (*deltaLevel, error) {
 			prod[i] = pm
 		}
 		sdd := sigmaSecond(p[:k], n)[k]
-		gr.toFreq(shat, src, invq[k], sdd-invq[k])
+		if err := gr.ToFreqJump(shat, src, invq[k], sdd-invq[k]); err != nil {
+			return nil, err
+		}
 		g[k] = make([]float64, m)
 		sig[k] = make([]float64, m)
 		for i := range shat {
@@ -135,7 +145,9 @@ func solveDeltaLevel(beta float64, m, order int) (*deltaLevel, error) {
 			sig[k][i] = g[k][i] + shat[i]
 		}
 		G[k] = make([]float64, m)
-		gr.toTime(G[k], g[k], 0, invq[k])
+		if err := gr.ToTimeJump(G[k], g[k], 0, invq[k]); err != nil {
+			return nil, err
+		}
 		P[k] = make([]float64, m)
 		Sig[k] = make([]float64, m)
 		L[k] = make([]float64, m)
@@ -165,7 +177,7 @@ func solveDeltaLevel(beta float64, m, order int) (*deltaLevel, error) {
 // log Z = (1/2) log 2 + sum_{n>=0} log(1 + sigma_n/w_n) - beta (1 - 1/q) int_0^{beta/2} G Sigma
 // order by order. The Matsubara sum's tail 2 Sigma(0+)/w^2 - 2 (Sigma”(0+) + Sigma(0+)^2)/w^4
 // is subtracted with 2/(w^2+1) and 2/(w^2+1)^2 and their exact sums added back.
-func deltaLogZ(gr *halfGrid, sig [][]float64, in, p []float64, n int) []float64 {
+func deltaLogZ(gr *numeric.HalfGrid, sig [][]float64, in, p []float64, n int) []float64 {
 	invq := fsGeometric(2, 1, n)
 	sdd := sigmaSecond(p, n)
 	q2 := fsMul(invq, invq, n)
@@ -178,30 +190,8 @@ func deltaLogZ(gr *halfGrid, sig [][]float64, in, p []float64, n int) []float64 
 		a1[k] = A / 2
 		a2[k] = (B + c*c*A) / 2
 	}
-	sum := make([]float64, n)
-	u := make([]float64, n)
-	for i, w := range gr.w {
-		u[0] = 1 + sig[0][i]/w
-		for k := 1; k < n; k++ {
-			u[k] = sig[k][i] / w
-		}
-		l := fsLog(u, n)
-		d := w*w + c*c
-		f1 := 2 / d
-		f2 := f1 / d
-		for k := range sum {
-			sum[k] += l[k] - a1[k]*f1 - a2[k]*f2
-		}
-	}
-	s1, s2 := matsubaraTails(gr.beta, c)
 	pre := fsMul([]float64{1, 1}, invq, n) // 1 - 1/q = (1+delta)/(2+delta)
-	inter := fsMul(pre, in, n)
-	out := make([]float64, n)
-	for k := range out {
-		out[k] = sum[k] + a1[k]*s1 + a2[k]*s2 - gr.beta*inter[k]
-	}
-	out[0] += 0.5 * math.Ln2
-	return out
+	return assembleLogZ(gr, sig, a1, a2, c, fsMul(pre, in, n))
 }
 
 func ones(m int) []float64 {

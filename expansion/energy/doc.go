@@ -18,5 +18,9 @@
 // log Z = -beta E_0 + S_0 + 2 pi^2 alpha_S/beta + ... order by order over a
 // ladder of temperatures; the fitted S_0 coefficients are held against the
 // exact zero-temperature entropy (ExactS0Eps, ExactS0InvQ), a test of the
-// whole chain. Units are script-J = 1 throughout.
+// whole chain. DirectGround and Ground run the direct Schwinger-Dyson solver
+// of package numeric on its default low-temperature ladder, with h_1 and the
+// exact S_0 from package expansion/conformal, once per q and ladder in a
+// process. The float64 machinery (grids, Richardson extrapolation, fits) is
+// package numeric's. Units are script-J = 1 throughout.
 package energy

@@ -32,35 +32,6 @@ func fsInv(a []float64, n int) []float64 {
 	return out
 }
 
-// fsLog returns log(a) to n terms; a[0] must be positive.
-// From a f' = a': k f_k a_0 = k a_k - sum_{j=1}^{k-1} j f_j a_{k-j}.
-func fsLog(a []float64, n int) []float64 {
-	out := make([]float64, n)
-	out[0] = math.Log(a[0])
-	for k := 1; k < n; k++ {
-		s := float64(k) * at(a, k)
-		for j := 1; j < k; j++ {
-			s -= float64(j) * out[j] * at(a, k-j)
-		}
-		out[k] = s / (float64(k) * a[0])
-	}
-	return out
-}
-
-// fsExp returns exp(a) to n terms. From f' = a' f: k f_k = sum_j j a_j f_{k-j}.
-func fsExp(a []float64, n int) []float64 {
-	out := make([]float64, n)
-	out[0] = math.Exp(a[0])
-	for k := 1; k < n; k++ {
-		s := 0.0
-		for j := 1; j <= k; j++ {
-			s += float64(j) * at(a, j) * out[k-j]
-		}
-		out[k] = s / float64(k)
-	}
-	return out
-}
-
 // fsGeometric returns 1/(c0 + c1 t) to n terms.
 func fsGeometric(c0, c1 float64, n int) []float64 {
 	out := make([]float64, n)
@@ -81,7 +52,8 @@ func at(a []float64, k int) float64 {
 	return 0
 }
 
-// fsLogInto writes log(a) to dst (len(dst) terms) without allocating.
+// fsLogInto writes log(a) to dst (len(dst) terms) without allocating; a[0]
+// must be positive. From a f' = a': k f_k a_0 = k a_k - sum_{j=1}^{k-1} j f_j a_{k-j}.
 func fsLogInto(dst, a []float64) {
 	n := len(dst)
 	dst[0] = math.Log(a[0])
@@ -95,6 +67,7 @@ func fsLogInto(dst, a []float64) {
 }
 
 // fsExpInto writes exp(a) to dst (len(dst) terms) without allocating.
+// From f' = a' f: k f_k = sum_j j a_j f_{k-j}.
 func fsExpInto(dst, a []float64) {
 	n := len(dst)
 	dst[0] = math.Exp(a[0])

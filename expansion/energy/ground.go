@@ -9,7 +9,7 @@ import (
 // series on a geometric ladder of Steps temperatures from BetaMin to
 // BetaMax, fitted order by order.
 type GroundParams struct {
-	Order            int
+	Order            int     // highest order of the series
 	BetaMin, BetaMax float64 // 0 means the defaults of each expansion
 	Steps            int     // 0 means the default of each expansion
 	// Progress, when not nil, receives the fraction done and a short status.
@@ -20,13 +20,13 @@ type GroundParams struct {
 // coefficient with an error bar, the exact S_0 coefficients for comparison,
 // and the finite-beta series they were fitted from.
 type GroundSeries struct {
-	Variable          string
-	E0, S0, AlphaS    Coeffs
-	S0Exact           []float64
-	Ladder            []*FiniteBeta
-	BetaMin, BetaMax  float64
-	FitsPerOrder      []int // accepted fits per order
-	TotalFitsPerOrder []int
+	Variable          string        // VarDelta, VarEps or VarX
+	E0, S0, AlphaS    Coeffs        // the fitted series
+	S0Exact           []float64     // exact S_0 coefficients (Kitaev's formula)
+	Ladder            []*FiniteBeta // the finite-beta series, in increasing beta
+	BetaMin, BetaMax  float64       // range of the ladder
+	FitsPerOrder      []int         // accepted fits per order
+	TotalFitsPerOrder []int         // fits tried per order
 }
 
 // S0Deviation returns, per order, (fitted - exact)/error of S_0: the
@@ -94,6 +94,33 @@ func deltaCorrections(k int) []corrTerm {
 	return t
 }
 
+// runLadder evaluates expand at every beta of the ladder (betas), in
+// increasing beta, reporting progress with the work taken proportional to
+// beta.
+func (p *GroundParams) runLadder(expand func(beta float64) (*FiniteBeta, error)) ([]*FiniteBeta, error) {
+	betas := p.betas()
+	var work, done float64
+	for _, b := range betas {
+		work += b
+	}
+	ladder := make([]*FiniteBeta, len(betas))
+	for i, b := range betas {
+		if p.Progress != nil {
+			p.Progress(done/work, fmt.Sprintf("beta %.4g (%d/%d)", b, i+1, len(betas)))
+		}
+		f, err := expand(b)
+		if err != nil {
+			return nil, fmt.Errorf("ladder step beta=%g: %w", b, err)
+		}
+		ladder[i] = f
+		done += b
+	}
+	if p.Progress != nil {
+		p.Progress(1, "fits")
+	}
+	return ladder, nil
+}
+
 // DeltaGround expands log Z and E in delta = q - 2 on a ladder of
 // temperatures (DeltaExpand) and fits, order by order,
 // log Z_k = -beta E_{0,k} + S_{0,k} + 2 pi^2 alpha_{S,k}/beta + corrections
@@ -114,29 +141,15 @@ func groundAroundTwo(p GroundParams, eps bool) (*GroundSeries, error) {
 	if p.Order > MaxDeltaOrder {
 		return nil, fmt.Errorf("%w: order %d is above the maximum %d of the q = 2 expansion", ErrOrder, p.Order, MaxDeltaOrder)
 	}
-	betas := p.betas()
-	var work, done float64
-	for _, b := range betas {
-		work += b
+	v := VarDelta
+	if eps {
+		v = VarEps
 	}
-	ladder := make([]*FiniteBeta, len(betas))
-	for i, b := range betas {
-		if p.Progress != nil {
-			p.Progress(done/work, fmt.Sprintf("beta %.4g (%d/%d)", b, i+1, len(betas)))
-		}
-		v := VarDelta
-		if eps {
-			v = VarEps
-		}
-		f, err := DeltaExpand(DeltaParams{Beta: b, Order: p.Order, Variable: v})
-		if err != nil {
-			return nil, fmt.Errorf("ladder step beta=%g: %w", b, err)
-		}
-		ladder[i] = f
-		done += b
-	}
-	if p.Progress != nil {
-		p.Progress(1, "fits")
+	ladder, err := p.runLadder(func(b float64) (*FiniteBeta, error) {
+		return DeltaExpand(DeltaParams{Beta: b, Order: p.Order, Variable: v})
+	})
+	if err != nil {
+		return nil, err
 	}
 	g, err := groundFromLadder(ladder, deltaCorrections)
 	if err != nil {
@@ -240,29 +253,15 @@ func InvQGround(p GroundParams) (*GroundSeries, error) {
 	if p.Order < 2 || p.Order > MaxInvQOrder {
 		return nil, fmt.Errorf("%w: the 1/q expansion takes orders 2..%d, got %d", ErrOrder, MaxInvQOrder, p.Order)
 	}
-	betas := p.betas()
-	var work, done float64
-	for _, b := range betas {
-		work += b
-	}
-	ladder := make([]*FiniteBeta, len(betas))
-	for i, b := range betas {
-		if p.Progress != nil {
-			p.Progress(done/work, fmt.Sprintf("beta %.4g (%d/%d)", b, i+1, len(betas)))
-		}
+	ladder, err := p.runLadder(func(b float64) (*FiniteBeta, error) {
 		n := 256
 		for float64(n) < invQPointsPerBeta*b && n < MaxGridPoints {
 			n *= 2
 		}
-		f, err := InvQExpand(InvQParams{Beta: b, Order: p.Order, Points: n})
-		if err != nil {
-			return nil, fmt.Errorf("ladder step beta=%g: %w", b, err)
-		}
-		ladder[i] = f
-		done += b
-	}
-	if p.Progress != nil {
-		p.Progress(1, "fits")
+		return InvQExpand(InvQParams{Beta: b, Order: p.Order, Points: n})
+	})
+	if err != nil {
+		return nil, err
 	}
 	g, err := groundFromLadderFrom(ladder, invQCorrections, 2)
 	if err != nil {

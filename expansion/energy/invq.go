@@ -24,9 +24,6 @@ type InvQParams struct {
 // Liouville zero modes at low temperature.
 const MaxInvQOrder = 16
 
-// invQRichardsonPowers: fourth-order quadrature and transforms, then h^5, h^6.
-var invQRichardsonPowers = []float64{4, 5, 6}
-
 // InvQExpand returns log Z and E at p.Beta as series in x = 1/q up to
 // x^Order: G = (1/2) sgn(tau)[1 + g_1 x + g_2 x^2 + ...] with g_1 the
 // Liouville solution (Maldacena-Stanford arXiv:1604.07818 sec. 2.4) and
@@ -42,50 +39,16 @@ func InvQExpand(p InvQParams) (*FiniteBeta, error) {
 		return nil, fmt.Errorf("%w: the 1/q expansion starts at order 2 (log Z and E are trivial below), got order %d", ErrInput, p.Order)
 	case p.Order > MaxInvQOrder:
 		return nil, fmt.Errorf("%w: order %d is above the maximum %d of the 1/q expansion (cost grows like order^3 x points)", ErrOrder, p.Order, MaxInvQOrder)
-	case p.Levels < 0 || p.Levels > 5:
-		return nil, fmt.Errorf("%w: levels must be between 1 and 5, got %d", ErrInput, p.Levels)
 	}
-	if p.Points != 0 && (p.Points < MinGridPoints || p.Points > MaxGridPoints || p.Points&(p.Points-1) != 0) {
-		return nil, fmt.Errorf("%w: points must be a power of two between %d and %d, got %d", ErrInput, MinGridPoints, MaxGridPoints, p.Points)
-	}
-	if p.Points == 0 {
-		p.Points = DefaultDeltaPoints(p.Beta)
-	}
-	if p.Levels == 0 {
-		p.Levels = 3
-	}
-	if p.Points>>(p.Levels-1) < MinGridPoints/2 {
-		return nil, fmt.Errorf("%w: %d points leave too few on the coarsest of %d grids", ErrInput, p.Points, p.Levels)
-	}
-	n := p.Order + 1
-	lz := make([][]float64, p.Levels)
-	e := make([][]float64, p.Levels)
-	for l := range lz {
-		lv, err := solveInvQLevel(p.Beta, p.Points>>(l+1), p.Order)
-		if err != nil {
-			return nil, err
-		}
-		lz[l], e[l] = lv.logZ, lv.e
-	}
-	out := &FiniteBeta{Beta: p.Beta, Variable: VarX, Points: p.Points, Levels: p.Levels}
-	out.LogZ = extrapolateRows(lz, n, invQRichardsonPowers)
-	out.E = extrapolateRows(e, n, invQRichardsonPowers)
-	if err := checkResolved(out.E, p.Order, p.Beta/float64(p.Points)); err != nil {
+	var err error
+	if p.Points, p.Levels, err = gridLevels(p.Beta, p.Points, p.Levels); err != nil {
 		return nil, err
 	}
-	return out, nil
-}
-
-// extrapolateRows Richardson-extrapolates coefficient by coefficient; rows
-// are the grids, finest first.
-func extrapolateRows(rows [][]float64, n int, powers []float64) Coeffs {
-	c := Coeffs{Values: make([]float64, n), Errors: make([]float64, n)}
-	v := make([]float64, len(rows))
-	for k := 0; k < n; k++ {
-		for i, r := range rows {
-			v[i] = r[k]
+	return onGrids(p.Beta, p.Points, p.Levels, p.Order, VarX, func(m int) ([]float64, []float64, error) {
+		lv, err := solveInvQLevel(p.Beta, m, p.Order)
+		if err != nil {
+			return nil, nil, err
 		}
-		c.Values[k], c.Errors[k] = richardson(v, powers)
-	}
-	return c
+		return lv.logZ, lv.e, nil
+	})
 }

@@ -3,6 +3,8 @@ package energy
 import (
 	"fmt"
 	"math"
+
+	"qbridge/numeric"
 )
 
 // invQLevel is the expansion of the SD solution in x = 1/q on one grid:
@@ -197,7 +199,11 @@ func solveInvQLevel(beta float64, m, order int) (*invQLevel, error) {
 	if err != nil {
 		return nil, err
 	}
-	gr := newHalfGrid(beta, m)
+	gr, err := numeric.NewHalfGrid(beta, m)
+	if err != nil {
+		return nil, err
+	}
+	freqs := gr.Freqs()
 	ls := newLiouvilleSolver(beta, m)
 	g := make([][]float64, n)   // g_k on tau_0..tau_m
 	Sig := make([][]float64, n) // Sigma_k on tau_1..tau_m
@@ -205,7 +211,7 @@ func solveInvQLevel(beta float64, m, order int) (*invQLevel, error) {
 	gam := make([][]float64, n) // sine coefficients of g_k/2
 	p := make([]float64, n)     // coefficients of G'(0+)
 	in := make([]float64, n)    // coefficients of int_0^{beta/2} G Sigma
-	damp := 1 / (1 + gr.h*gr.h/6)
+	damp := 1 / (1 + gr.H()*gr.H()/6)
 	phi := make([]float64, m+1)
 	R := make([]float64, m+1)
 	T := make([]float64, m)
@@ -241,7 +247,7 @@ func solveInvQLevel(beta float64, m, order int) (*invQLevel, error) {
 				phi[i] = ex[k-1]
 			}
 			// Non-local source from the frequency-space products.
-			for ni, w := range gr.w {
+			for ni, w := range freqs {
 				s := 0.0
 				for aa := 1; aa < k; aa++ {
 					s += sig[aa][ni] * sig[k-aa][ni] / w
@@ -258,7 +264,9 @@ func solveInvQLevel(beta float64, m, order int) (*invQLevel, error) {
 			if k == 2 {
 				d = -2
 			}
-			gr.toTime(N, T, 0, d)
+			if err := gr.ToTimeJump(N, T, 0, d); err != nil {
+				return nil, err
+			}
 			R[0] = 0
 			for i := 1; i <= m; i++ {
 				R[i] = phi[i] - N[i-1]
@@ -281,7 +289,7 @@ func solveInvQLevel(beta float64, m, order int) (*invQLevel, error) {
 		if k == 1 {
 			f0 = 0.5
 		}
-		in[k] = gr.trapezoid(f0, buf) * damp
+		in[k] = gr.Trapezoid(f0, buf) * damp
 		p[k] = -2 * in[k]
 		sdd := sigmaSecondInvQ(p[:k+1], n)
 		v0, d1 := 0.0, 0.0
@@ -289,12 +297,16 @@ func solveInvQLevel(beta float64, m, order int) (*invQLevel, error) {
 			v0, d1 = 1, 1
 		}
 		sig[k] = make([]float64, m)
-		gr.toFreq(sig[k], Sig[k], v0, sdd[k])
+		if err := gr.ToFreqJump(sig[k], Sig[k], v0, sdd[k]); err != nil {
+			return nil, err
+		}
 		for i := 1; i <= m; i++ {
 			buf[i-1] = g[k][i] / 2
 		}
 		gam[k] = make([]float64, m)
-		gr.toFreq(gam[k], buf, 0, d1)
+		if err := gr.ToFreqJump(gam[k], buf, 0, d1); err != nil {
+			return nil, err
+		}
 	}
 	lv := &invQLevel{beta: beta, v: v, m: m, p: p}
 	lv.logZ = invQLogZ(gr, sig, in, p, n)
@@ -313,7 +325,7 @@ func solveInvQLevel(beta float64, m, order int) (*invQLevel, error) {
 // invQLogZ assembles log Z = (1/2) log 2 + sum_n log(1 + sigma_n/w_n)
 // - beta (1 - x) int_0^{beta/2} G Sigma order by order in x, with the
 // Matsubara tail 2x/w^2 - 2(Sigma”(0+) + x^2)/w^4 summed in closed form.
-func invQLogZ(gr *halfGrid, sig [][]float64, in, p []float64, n int) []float64 {
+func invQLogZ(gr *numeric.HalfGrid, sig [][]float64, in, p []float64, n int) []float64 {
 	sdd := sigmaSecondInvQ(p, n)
 	a1 := make([]float64, n)
 	a2 := make([]float64, n)
@@ -330,28 +342,5 @@ func invQLogZ(gr *halfGrid, sig [][]float64, in, p []float64, n int) []float64 {
 		a1[k] = A / 2
 		a2[k] = (B + c*c*A) / 2
 	}
-	sum := make([]float64, n)
-	u := make([]float64, n)
-	l := make([]float64, n)
-	for i, w := range gr.w {
-		u[0] = 1
-		for k := 1; k < n; k++ {
-			u[k] = sig[k][i] / w
-		}
-		fsLogInto(l, u)
-		d := w*w + c*c
-		f1 := 2 / d
-		f2 := f1 / d
-		for k := range sum {
-			sum[k] += l[k] - a1[k]*f1 - a2[k]*f2
-		}
-	}
-	s1, s2 := matsubaraTails(gr.beta, c)
-	inter := fsMul([]float64{1, -1}, in, n)
-	out := make([]float64, n)
-	for k := range out {
-		out[k] = sum[k] + a1[k]*s1 + a2[k]*s2 - gr.beta*inter[k]
-	}
-	out[0] += 0.5 * math.Ln2
-	return out
+	return assembleLogZ(gr, sig, a1, a2, c, fsMul([]float64{1, -1}, in, n))
 }

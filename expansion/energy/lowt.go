@@ -3,9 +3,10 @@ package energy
 import (
 	"fmt"
 	"math"
-	"sort"
 
 	"gonum.org/v1/gonum/mat"
+
+	"qbridge/numeric"
 )
 
 // corrTerm is a correction beta^{-P} (log beta)^J to the low-temperature
@@ -49,7 +50,7 @@ type lowTFit struct {
 
 // fitLowT fits E = E_0 + 2 pi^2 alpha/beta^2 + sum a_t E_t(beta) and
 // S = S_0 + 4 pi^2 alpha/beta + sum a_t S_t(beta) jointly (the same log Z
-// model), each datum weighted by 1/(its error + scale*rel).
+// model), each datum weighted by 1/its error (numeric.FitLinear).
 func fitLowT(beta, e, eErr, s, sErr []float64, terms []corrTerm) (lowTFit, error) {
 	n := len(beta)
 	np := 3 + len(terms)
@@ -57,65 +58,30 @@ func fitLowT(beta, e, eErr, s, sErr []float64, terms []corrTerm) (lowTFit, error
 		return lowTFit{}, fmt.Errorf("energy: %d data for %d parameters", 2*n, np)
 	}
 	a := mat.NewDense(2*n, np, nil)
-	y := mat.NewVecDense(2*n, nil)
-	// Columns are scaled by their size at the smallest beta, for conditioning.
-	b0 := beta[0]
-	scale := make([]float64, np)
-	scale[0], scale[1], scale[2] = 1, 1, 2*math.Pi*math.Pi/b0
-	for j, t := range terms {
-		scale[3+j] = math.Abs(t.inS(b0)) + math.Abs(t.inE(b0))*b0
-		if scale[3+j] == 0 {
-			scale[3+j] = 1
-		}
-	}
+	y := make([]float64, 2*n)
+	sigma := make([]float64, 2*n)
 	for i, b := range beta {
-		we := 1 / eErr[i]
-		ws := 1 / sErr[i]
-		a.Set(i, 0, we/scale[0])
-		a.Set(i, 2, we*2*math.Pi*math.Pi/(b*b)/scale[2])
-		y.SetVec(i, we*e[i])
-		a.Set(n+i, 1, ws/scale[1])
-		a.Set(n+i, 2, ws*4*math.Pi*math.Pi/b/scale[2])
-		y.SetVec(n+i, ws*s[i])
+		a.Set(i, 0, 1)
+		a.Set(i, 2, 2*math.Pi*math.Pi/(b*b))
+		a.Set(n+i, 1, 1)
+		a.Set(n+i, 2, 4*math.Pi*math.Pi/b)
 		for j, t := range terms {
-			a.Set(i, 3+j, we*t.inE(b)/scale[3+j])
-			a.Set(n+i, 3+j, ws*t.inS(b)/scale[3+j])
+			a.Set(i, 3+j, t.inE(b))
+			a.Set(n+i, 3+j, t.inS(b))
 		}
+		y[i], sigma[i] = e[i], eErr[i]
+		y[n+i], sigma[n+i] = s[i], sErr[i]
 	}
-	var x mat.VecDense
-	if err := x.SolveVec(a, y); err != nil {
-		return lowTFit{}, fmt.Errorf("energy: low-temperature fit: %v", err)
+	lf, err := numeric.FitLinear(a, y, sigma)
+	if err != nil {
+		return lowTFit{}, fmt.Errorf("energy: low-temperature fit: %w", err)
 	}
-	var r mat.VecDense
-	r.MulVec(a, &x)
-	r.SubVec(&r, y)
-	f := lowTFit{BetaMin: beta[0], BetaMax: beta[n-1], Terms: terms}
-	f.E0 = x.AtVec(0) / scale[0]
-	f.S0 = x.AtVec(1) / scale[1]
-	f.AlphaS = x.AtVec(2) / scale[2]
-	f.RMS = math.Sqrt(mat.Dot(&r, &r) / float64(2*n-np))
-	// Covariance (A^T A)^{-1} = V diag(1/sigma^2) V^T of the scaled
-	// parameters, from the SVD (no squared condition number).
-	var svd mat.SVD
-	f.E0Sd, f.S0Sd, f.AlphaSSd = math.Inf(1), math.Inf(1), math.Inf(1)
-	if svd.Factorize(a, mat.SVDThin) {
-		sv := svd.Values(nil)
-		var v mat.Dense
-		svd.VTo(&v)
-		inflate := math.Max(1, f.RMS)
-		sd := func(i int) float64 {
-			c := 0.0
-			for j, sj := range sv {
-				if sj <= sv[0]*1e-15 {
-					return math.Inf(1)
-				}
-				c += v.At(i, j) * v.At(i, j) / (sj * sj)
-			}
-			return inflate * math.Sqrt(c) / scale[i]
-		}
-		f.E0Sd, f.S0Sd, f.AlphaSSd = sd(0), sd(1), sd(2)
-	}
-	return f, nil
+	return lowTFit{
+		BetaMin: beta[0], BetaMax: beta[n-1], Terms: terms,
+		E0: lf.Values[0], S0: lf.Values[1], AlphaS: lf.Values[2],
+		E0Sd: lf.Errors[0], S0Sd: lf.Errors[1], AlphaSSd: lf.Errors[2],
+		RMS: math.Sqrt(lf.Chi2),
+	}, nil
 }
 
 // lowTEstimate is the extraction at one order: central values, error bars
@@ -167,25 +133,11 @@ func extractLowT(beta, e, eErr, s, sErr []float64, terms []corrTerm, minData int
 	if len(e0) < 2 {
 		return nil, fmt.Errorf("energy: low-temperature fits: only %d acceptable fits over %d temperatures (%.4g to %.4g); widen the range or add temperatures", len(e0), n, beta[0], beta[n-1])
 	}
-	est.E0, est.E0Err = medianSpread(e0)
-	est.S0, est.S0Err = medianSpread(s0)
-	est.AlphaS, est.AlphaSErr = medianSpread(al)
+	est.E0, est.E0Err = numeric.MedianSpread(e0)
+	est.S0, est.S0Err = numeric.MedianSpread(s0)
+	est.AlphaS, est.AlphaSErr = numeric.MedianSpread(al)
 	est.E0Err += sdE
 	est.S0Err += sdS
 	est.AlphaSErr += sdA
 	return est, nil
-}
-
-// medianSpread returns the median and half the range of v.
-func medianSpread(v []float64) (float64, float64) {
-	if len(v) == 0 {
-		return math.NaN(), math.NaN()
-	}
-	s := append([]float64(nil), v...)
-	sort.Float64s(s)
-	med := s[len(s)/2]
-	if len(s)%2 == 0 {
-		med = (s[len(s)/2-1] + s[len(s)/2]) / 2
-	}
-	return med, (s[len(s)-1] - s[0]) / 2
 }

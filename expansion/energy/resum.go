@@ -12,9 +12,9 @@ import (
 
 // Estimate is one resummed value with its error bar and how it was obtained.
 type Estimate struct {
-	Method     string
-	Value, Err float64
-	Detail     string
+	Method     string  // one of the Method constants
+	Value, Err float64 // the value and its error bar (NaN when not available)
+	Detail     string  // how it was obtained (orders, approximants used)
 }
 
 // Quantities that can be resummed.
@@ -195,12 +195,12 @@ func withCoefficientErrors2(a, b Coeffs, f func(a, b []float64) (*pade.Resummed,
 
 // Resummation is the resummed value of one quantity at one q.
 type Resummation struct {
-	Quantity string
-	Q        float64
+	Quantity string  // QuantityE0 or QuantityAlphaS
+	Q        float64 // interaction order
 	// AtInf and AtTwo are the normalised series q^2 F in x = 1/q around
 	// x = 0 and in x - 1/2 around q = 2 (see Normalised).
 	AtInf, AtTwo Coeffs
-	Estimates    []Estimate
+	Estimates    []Estimate // one per method
 }
 
 // ResumGround resums quantity (QuantityE0 or QuantityAlphaS) at q from the
