@@ -94,17 +94,23 @@ func Resum(q float64, atInf, atTwo Coeffs) ([]Estimate, error) {
 		s    Coeffs
 		t    float64
 	}{{MethodPartialEps, atTwo, u}, {MethodPartialInvQ, atInf, x}} {
-		v, last := 0.0, 0.0
+		v := 0.0
 		tk := 1.0
 		err := 0.0
+		terms := make([]float64, c.s.Len())
 		for k, a := range c.s.Values {
-			last = a * tk
-			v += last
+			terms[k] = a * tk
+			v += terms[k]
 			err += c.s.Errors[k] * math.Abs(tk)
 			tk *= c.t
 		}
-		out = append(out, Estimate{Method: c.name, Value: scale(v), Err: scale(math.Abs(last) + err),
-			Detail: fmt.Sprintf("%d terms; error = last term + coefficient errors", c.s.Len())})
+		tail, how := tailBound(terms)
+		est := Estimate{Method: c.name, Value: scale(v), Err: scale(tail + err),
+			Detail: fmt.Sprintf("%d terms; error = %s + coefficient errors", c.s.Len(), how)}
+		if math.IsNaN(tail) {
+			est.Detail = fmt.Sprintf("%d terms; error not estimated: %s", c.s.Len(), how)
+		}
+		out = append(out, est)
 	}
 	// One-point Pade tables.
 	for _, c := range []struct {
@@ -182,13 +188,23 @@ func withCoefficientErrors2(a, b Coeffs, f func(a, b []float64) (*pade.Resummed,
 		}
 		return out
 	}
+	failed := 0
 	for i := 0; i < coefficientSamples; i++ {
 		rp, err := f(perturb(a), perturb(b))
 		if err != nil {
+			// A resummation that fails inside the coefficient error bars is
+			// not robust there: its shift is unknown, so is the error.
+			failed++
 			continue
 		}
 		w, _ := rp.Value.Float64()
 		shift = math.Max(shift, math.Abs(w-v))
+	}
+	switch {
+	case failed == coefficientSamples:
+		return Estimate{Value: v, Err: math.NaN(), Detail: fmt.Sprintf("%s; error not estimated: all %d resummations with the coefficients moved within their error bars failed", r.Method, coefficientSamples)}, nil
+	case failed > 0:
+		return Estimate{Value: v, Err: trunc + shift, Detail: fmt.Sprintf("%s; coefficient shift from %d of %d perturbed resummations (%d failed: the approximant is fragile there)", r.Method, coefficientSamples-failed, coefficientSamples, failed)}, nil
 	}
 	return Estimate{Value: v, Err: trunc + shift, Detail: r.Method}, nil
 }
@@ -228,4 +244,27 @@ func ResumGround(quantity string, q float64, eps, invq *GroundSeries) (*Resummat
 		return nil, err
 	}
 	return &Resummation{Quantity: quantity, Q: q, AtInf: inf, AtTwo: two, Estimates: est}, nil
+}
+
+// tailBound estimates the omitted tail of a partial sum from its last
+// terms: with t_K the last two non-zero terms and their ratio r < 1, the
+// tail is bounded by the geometric series |t_K| r/(1-r), and the last
+// term itself is added (it is known only to the accuracy of the series).
+// When the terms do not decrease the tail is not estimated (NaN).
+func tailBound(terms []float64) (float64, string) {
+	var nz []float64
+	for _, x := range terms {
+		if x != 0 {
+			nz = append(nz, math.Abs(x))
+		}
+	}
+	if len(nz) < 2 {
+		return math.NaN(), "fewer than two non-zero terms"
+	}
+	last, prev := nz[len(nz)-1], nz[len(nz)-2]
+	r := last / prev
+	if r >= 0.9 {
+		return math.NaN(), fmt.Sprintf("the terms do not decrease (ratio of the last two %.2g)", r)
+	}
+	return last + last*r/(1-r), "last term + geometric tail from the ratio of the last two terms"
 }
