@@ -43,7 +43,11 @@ func Exp(a *Series) (*Series, error) {
 	wp := elemWorkPrec(a.prec, n)
 	da := elemScaledDeriv(a.c, n, wp)
 	f := elemZeros(n, wp)
-	f[0] = scalar.BigExp(a.c[0], wp)
+	e0, err := scalar.CheckedExp(a.c[0], wp)
+	if err != nil {
+		return nil, fmt.Errorf("series: Exp: %w", err)
+	}
+	f[0] = e0
 	t := new(big.Float).SetPrec(wp)
 	k := new(big.Float)
 	for m := 1; m < n; m++ {

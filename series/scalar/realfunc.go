@@ -2,6 +2,8 @@ package scalar
 
 import (
 	"errors"
+	"fmt"
+	"math"
 	"math/big"
 )
 
@@ -91,14 +93,14 @@ func BigExp(x *big.Float, prec uint) *big.Float {
 	if x.Sign() == 0 {
 		return new(big.Float).SetPrec(prec).SetInt64(1)
 	}
-	ex := max(x.MantExp(nil), 0)
-	if ex > 62 {
-		// |x| > 2^62: e^x is outside big.Float's exponent range.
+	if x.IsInf() || CmpAbs(x, expLimit) > 0 {
+		// e^x is outside big.Float's exponent range (CheckedExp says so).
 		if x.Sign() > 0 {
 			return new(big.Float).SetPrec(prec).SetInf(false)
 		}
 		return new(big.Float).SetPrec(prec)
 	}
+	ex := max(x.MantExp(nil), 0)
 	const h = 12
 	p := prec + uint(ex) + 2*h + Guard
 	ln2 := Ln2(p)
@@ -122,6 +124,30 @@ func BigExp(x *big.Float, prec uint) *big.Float {
 	}
 	sum.SetMantExp(sum, int(n.Int64()))
 	return sum.SetPrec(prec)
+}
+
+// expLimit bounds |x| in BigExp: e^x with x beyond (2^31 - 2) log 2 has a
+// binary exponent outside big.Float's range.
+var expLimit = big.NewFloat(float64(big.MaxExp-1) * math.Ln2)
+
+// ErrOverflow is returned when a result lies outside big.Float's exponent
+// range.
+var ErrOverflow = errors.New("result outside the exponent range of big.Float")
+
+// CheckedExp is BigExp with an error instead of +Inf: it returns
+// ErrOverflow for x > (2^31 - 2) log 2 (about 1.49e9) and ErrDomain for a
+// nil or infinite argument. Callers that can see huge arguments use it.
+func CheckedExp(x *big.Float, prec uint) (*big.Float, error) {
+	if err := CheckPrec(prec); err != nil {
+		return nil, err
+	}
+	if x == nil || x.IsInf() {
+		return nil, fmt.Errorf("%w: exp of %v", ErrDomain, x)
+	}
+	if x.Sign() > 0 && x.Cmp(expLimit) > 0 {
+		return nil, fmt.Errorf("%w: exp(%s)", ErrOverflow, x.Text('g', 10))
+	}
+	return BigExp(x, prec), nil
 }
 
 // ErrDomain is returned when a function is asked for a value outside its domain.
@@ -182,7 +208,7 @@ func BigPow(x, y *big.Float, prec uint) (*big.Float, error) {
 	if err != nil {
 		return nil, err
 	}
-	return BigExp(lx.Mul(lx, y), prec), nil
+	return CheckedExp(lx.Mul(lx, y), prec)
 }
 
 // BigSinCos returns sin x and cos x at prec bits. The argument is reduced

@@ -1,6 +1,7 @@
 package scalar
 
 import (
+	"errors"
 	"math"
 	"math/big"
 	"testing"
@@ -87,5 +88,28 @@ func TestBigPow(t *testing.T) {
 		if math.Abs(f-c.want) > 1e-15*c.want {
 			t.Errorf("%g^%g = %v", c.x, c.y, f)
 		}
+	}
+}
+
+// Beyond big.Float's exponent range e^x is an overflow error, not +Inf
+// (and e^-x underflows to zero, which BigExp returns).
+func TestCheckedExpOverflow(t *testing.T) {
+	for _, x := range []float64{1.5e9, 1e12, 1e300} {
+		if _, err := CheckedExp(big.NewFloat(x), 64); !errors.Is(err, ErrOverflow) {
+			t.Errorf("exp(%g): err = %v, want ErrOverflow", x, err)
+		}
+	}
+	if _, err := CheckedExp(nil, 64); !errors.Is(err, ErrDomain) {
+		t.Errorf("exp(nil): err = %v", err)
+	}
+	v, err := CheckedExp(big.NewFloat(1e9), 64) // 2^(1.44e9): inside the range
+	if err != nil || v.IsInf() || v.Sign() <= 0 {
+		t.Errorf("exp(1e9) = %v, %v", v, err)
+	}
+	if v := BigExp(big.NewFloat(-1e12), 64); v.Sign() != 0 {
+		t.Errorf("exp(-1e12) = %v, want 0", v)
+	}
+	if _, err := BigPow(big.NewFloat(10), big.NewFloat(1e12), 64); !errors.Is(err, ErrOverflow) {
+		t.Errorf("10^1e12: err = %v, want ErrOverflow", err)
 	}
 }
