@@ -38,6 +38,10 @@ const (
 	energyResumMinEps = 2
 	// MaxBeta is the largest beta*script-J of a log Z series.
 	MaxBeta = 1e5
+	// MaxEnergyOrderEps and MaxEnergyOrderX are the highest orders of the
+	// E_0, alpha_S and log Z series around q = 2 and q = infinity.
+	MaxEnergyOrderEps = energy.MaxDeltaOrder
+	MaxEnergyOrderX   = energy.MaxInvQOrder
 )
 
 // inputErr marks errors of energy caused by the request as ErrInput.

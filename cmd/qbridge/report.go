@@ -78,11 +78,11 @@ from the reference. Errors and methods are in the JSON output and the notes.`,
 
 func reportOutput(q conformal.QPoint, rows []reportRow) *Output {
 	d := opts.Digits
-	header := []string{"quantity", "reference", "kind"}
+	header := []string{"quantity", "reference", "reference error", "kind"}
 	for _, c := range reportColumns {
-		header = append(header, c, "diff")
+		header = append(header, c, c+" error", c+" - reference")
 	}
-	header = append(header, "published", "diff", "source")
+	header = append(header, "published", "published - reference", "source")
 	tab := Table{Title: fmt.Sprintf("qbridge report at q = %s (script-J = 1)", q), Header: header}
 	var jrows []map[string]any
 	var failures []string
@@ -93,16 +93,16 @@ func reportOutput(q conformal.QPoint, rows []reportRow) *Output {
 				failures = append(failures, fmt.Sprintf("%s %s: %s", r.r.Name, e.Method, e.Detail))
 			}
 		}
-		cells := []string{r.r.Name, fmtBig(ref.Value, refDigits(ref)), ref.Kind}
+		cells := []string{r.r.Name, fmtBig(ref.Value, refDigits(ref)), fmtErr(ref.Err), ref.Kind}
 		jr := map[string]any{"quantity": r.r.Name, "reference": fmtBig(ref.Value, refDigits(ref)), "reference_error": fmtErr(ref.Err), "reference_kind": ref.Kind}
 		for _, c := range reportColumns {
 			e, ok := r.Estimates[c]
 			if !ok || e.Value == nil {
-				cells = append(cells, "failed (see notes)", "")
+				cells = append(cells, "failed (see notes)", "", "")
 				continue
 			}
 			diff := new(big.Float).Sub(e.Value, ref.Value)
-			cells = append(cells, fmtBig(e.Value, refDigits(ref)), fmtBig(diff, 2))
+			cells = append(cells, fmtBig(e.Value, refDigits(ref)), fmtErr(e.Err), fmtBig(diff, 2))
 			jr[methodKey(c)] = map[string]string{"value": fmtBig(e.Value, refDigits(ref)), "error": fmtErr(e.Err), "difference": fmtBig(diff, 3)}
 		}
 		if p := r.r.Published; p != nil {

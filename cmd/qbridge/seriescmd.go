@@ -261,7 +261,7 @@ func errFreeStrings(xs []*big.Float) []string {
 func init() {
 	f := seriesCmd.Flags()
 	f.StringVar(&seriesFlags.around, "around", "2", "expansion point: 2 (variable eps = 1 - 2/q) or inf (variable x = 1/q)")
-	f.IntVar(&seriesFlags.order, "order", 12, fmt.Sprintf("highest power kept (0..%d; E_0 and alpha_S: 0..%d around 2, 2..%d around inf)", conformal.MaxOrder, 40, 10))
+	f.IntVar(&seriesFlags.order, "order", 12, fmt.Sprintf("highest power kept (h_n, b, S_0: 0..%d; E_0, alpha_S, logZ: 0..%d around 2, 2..%d around inf)", conformal.MaxOrder, expansion.MaxEnergyOrderEps, expansion.MaxEnergyOrderX))
 	f.StringVar(&seriesFlags.n, "n", "1", "dimension index for h_n: a number, a list 1,3 or a range 1..6")
 	f.BoolVar(&seriesFlags.closedForm, "closed-form", false, "identify closed forms of the coefficients by PSLQ (h_n, b, S_0)")
 	f.Float64Var(&seriesFlags.beta, "beta", 0, "inverse temperature beta*script-J (logZ only, required there)")
