@@ -102,4 +102,16 @@ func methodKey(m string) string {
 	return strings.NewReplacer(" ", "_", "-", "_", "/", "_").Replace(m)
 }
 
+// finishOutput adds the units note and sets the JSON document: the one
+// result itself, or the list of them.
+func finishOutput(out *Output, docs []map[string]any) *Output {
+	out.Notes = append(out.Notes, "units: script-J = 1")
+	if len(docs) == 1 {
+		out.JSON = docs[0]
+	} else {
+		out.JSON = docs
+	}
+	return out
+}
+
 var _ = fmt.Sprint

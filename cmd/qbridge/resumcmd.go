@@ -31,6 +31,9 @@ E_0 (e0), alpha_S (alpha). b is resummed through b^q, analytic at both ends.`,
   qbridge resum alpha_S --q 6`,
 	Args: cobra.ArbitraryArgs,
 	RunE: func(cmd *cobra.Command, args []string) error {
+		if cmd.Flags().Changed("emit") {
+			return runEmit(cmd, args)
+		}
 		q, err := parseQFlag(resumFlags.q)
 		if err != nil {
 			return err
@@ -70,13 +73,7 @@ func resumOutput(rs []*expansion.Resummation) *Output {
 		out.Notes = append(out.Notes, notes...)
 		docs = append(docs, js)
 	}
-	out.Notes = append(out.Notes, "units: script-J = 1")
-	if len(docs) == 1 {
-		out.JSON = docs[0]
-	} else {
-		out.JSON = docs
-	}
-	return out
+	return finishOutput(out, docs)
 }
 
 func resumTable(r *expansion.Resummation) (Table, map[string]any, []string) {
@@ -136,5 +133,6 @@ func init() {
 	f.StringVar(&resumFlags.q, "q", "4", "interaction order q (real >= 2)")
 	f.IntVar(&resumFlags.order, "order", 16, fmt.Sprintf("order of the series at each end (2..%d; E_0 and alpha_S use at most 10 around 2 and 8 around inf)", conformal.MaxOrder))
 	f.StringVar(&resumFlags.n, "n", "1", "dimension index for h_n: a number, a list 1,3 or a range 1..6")
+	f.StringVar(&emitFormat, "emit", "", emitUsage)
 	rootCmd.AddCommand(resumCmd)
 }

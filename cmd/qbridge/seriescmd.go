@@ -157,13 +157,7 @@ func seriesOutput(end conformal.End, results []*expansion.SeriesResult, forms []
 	if forms != nil {
 		out.Notes = append(out.Notes, "closed forms: "+conformal.ClosedFormBasisDoc)
 	}
-	out.Notes = append(out.Notes, "units: script-J = 1")
-	if len(docs) == 1 {
-		out.JSON = docs[0]
-	} else {
-		out.JSON = docs
-	}
-	return out
+	return finishOutput(out, docs)
 }
 
 func coefficientsTable(c *conformal.Coefficients, end conformal.End, forms []*conformal.ClosedForm, withForms bool) (Table, map[string]any) {

@@ -21,16 +21,9 @@ func dimensionSeries(end End, n, order int, prec uint) ([]*big.Float, error) {
 	if err != nil {
 		return nil, err
 	}
-	coarse, err := coarseEquation(end, n, nil)
+	y0, err := kernelRoot(eq, f, end, n, nil, fmt.Sprintf("h_%d at the %s end", n, end))
 	if err != nil {
 		return nil, err
-	}
-	y0, err := eq.scalarRoot(f.samples, coarse)
-	if err != nil {
-		return nil, fmt.Errorf("h_%d at the %s end: %w", n, end, err)
-	}
-	if eq.signAt(y0) < 0 {
-		return nil, fmt.Errorf("h_%d at the %s end: k_A = -1 rather than +1 at the root: no dimension there", n, end)
 	}
 	y, _, err := eq.seriesRoot(y0, length-1)
 	if err != nil {
@@ -127,16 +120,9 @@ func dimensionExact(q QPoint, n int, prec uint) (*big.Float, error) {
 	if s.Len() == 1 {
 		s0 = s.Coeff(0)
 	}
-	coarse, err := coarseEquation(end, n, s0)
+	y, err := kernelRoot(eq, f, end, n, s0, fmt.Sprintf("h_%d at q = %s", n, q))
 	if err != nil {
 		return nil, err
-	}
-	y, err := eq.scalarRoot(f.samples, coarse)
-	if err != nil {
-		return nil, fmt.Errorf("h_%d at q = %s: %w", n, q, err)
-	}
-	if eq.signAt(y) < 0 {
-		return nil, fmt.Errorf("h_%d at q = %s: k_A = -1 rather than +1 at the root", n, q)
 	}
 	h := new(big.Float).SetPrec(prec).Mul(f.scale.Coeff(0), y)
 	return h.Add(h, f.base), nil
@@ -181,4 +167,23 @@ func dimensionNearEnd(end End, n int, t *big.Float, prec uint) (*big.Float, erro
 		acc.Add(acc, c[k])
 	}
 	return acc, nil
+}
+
+// kernelRoot brackets the root of the kernel equation eq (form f) with the
+// coarse equation at the expansion point (s0 == nil) or at s0, polishes it,
+// and checks that it is a root of k_A = +1 (not -1). what names the root
+// in error messages.
+func kernelRoot(eq *logEquation, f *kernelForm, end End, n int, s0 *big.Float, what string) (*big.Float, error) {
+	coarse, err := coarseEquation(end, n, s0)
+	if err != nil {
+		return nil, err
+	}
+	y, err := eq.scalarRoot(f.samples, coarse)
+	if err != nil {
+		return nil, fmt.Errorf("%s: %w", what, err)
+	}
+	if eq.signAt(y) < 0 {
+		return nil, fmt.Errorf("%s: k_A = -1 rather than +1 at the root: no dimension there", what)
+	}
+	return y, nil
 }
