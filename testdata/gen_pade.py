@@ -12,36 +12,12 @@ Run from the repository root (OUTDIR defaults to this script's directory):
 
 It writes OUTDIR/pade_golden.json and prints one line on stderr.
 """
-import json
-import os
-import sys
+import goldenio
 
 import mpmath
 
 NAME = "pade_golden.json"
 DPS = 80
-
-
-def output_dir():
-    """The one optional argument: the output directory (default: this script's)."""
-    args = sys.argv[1:]
-    if len(args) > 1 or (args and args[0].startswith("-")):
-        raise SystemExit("usage: python3 %s [OUTDIR]" % sys.argv[0])
-    return args[0] if args else os.path.dirname(os.path.abspath(__file__))
-
-
-def write_golden(out, outdir, name):
-    """Write out as JSON (indent 1, keys in the insertion order fixed by this
-    script, trailing newline) to outdir/name, via a temporary file so a
-    failed run never leaves a truncated golden file behind."""
-    os.makedirs(outdir, exist_ok=True)
-    path = os.path.join(outdir, name)
-    tmp = path + ".tmp"
-    with open(tmp, "w", encoding="utf-8", newline="\n") as f:
-        f.write(json.dumps(out, indent=1))
-        f.write("\n")
-    os.replace(tmp, path)
-    print("wrote " + path, file=sys.stderr)
 
 
 def taylor(name, n):
@@ -72,10 +48,5 @@ def compute():
     }
 
 
-def main():
-    outdir = output_dir()
-    write_golden(compute(), outdir, NAME)
-
-
 if __name__ == "__main__":
-    main()
+    goldenio.main(NAME, compute)
