@@ -9,6 +9,10 @@ import (
 
 func main() {
 	if err := rootCmd.Execute(); err != nil {
+		var cf *claimFailed
+		if errors.As(err, &cf) {
+			os.Exit(1) // the verdict is printed already
+		}
 		fmt.Fprintf(os.Stderr, "qbridge: %v\n", err)
 		var ue *usageError
 		if errors.As(err, &ue) || isCobraUsage(err) {
