@@ -16,8 +16,15 @@ func maxPrec(a, b *Series) uint {
 	return b.prec
 }
 
-// Add returns a + b.
+// The arithmetic below returns no error: a nil operand (or a nil scalar)
+// gives a nil result, which every function that returns an error rejects,
+// so a nil never turns into a panic or a silent number.
+
+// Add returns a + b (nil if either is nil).
 func Add(a, b *Series) *Series {
+	if a == nil || b == nil {
+		return nil
+	}
 	out := newZero(minLen(a, b), maxPrec(a, b))
 	for i := range out.c {
 		out.c[i].Add(a.c[i], b.c[i])
@@ -25,8 +32,11 @@ func Add(a, b *Series) *Series {
 	return out
 }
 
-// Sub returns a - b.
+// Sub returns a - b (nil if either is nil).
 func Sub(a, b *Series) *Series {
+	if a == nil || b == nil {
+		return nil
+	}
 	out := newZero(minLen(a, b), maxPrec(a, b))
 	for i := range out.c {
 		out.c[i].Sub(a.c[i], b.c[i])
@@ -34,8 +44,11 @@ func Sub(a, b *Series) *Series {
 	return out
 }
 
-// Neg returns -a.
+// Neg returns -a (nil for nil).
 func Neg(a *Series) *Series {
+	if a == nil {
+		return nil
+	}
 	out := newZero(len(a.c), a.prec)
 	for i := range out.c {
 		out.c[i].Neg(a.c[i])
@@ -43,8 +56,11 @@ func Neg(a *Series) *Series {
 	return out
 }
 
-// Scale returns x * a.
+// Scale returns x * a (nil if a or x is nil).
 func Scale(a *Series, x *big.Float) *Series {
+	if a == nil || x == nil {
+		return nil
+	}
 	out := newZero(len(a.c), a.prec)
 	for i := range out.c {
 		out.c[i].Mul(a.c[i], x)
@@ -52,15 +68,22 @@ func Scale(a *Series, x *big.Float) *Series {
 	return out
 }
 
-// AddConst returns a + x (x added to the constant term).
+// AddConst returns a + x (x added to the constant term; nil if a or x is
+// nil or a is empty).
 func AddConst(a *Series, x *big.Float) *Series {
+	if a == nil || x == nil || len(a.c) == 0 {
+		return nil
+	}
 	out := a.Copy()
 	out.c[0].Add(out.c[0], x)
 	return out
 }
 
-// Mul returns the truncated product a * b.
+// Mul returns the truncated product a * b (nil if either is nil).
 func Mul(a, b *Series) *Series {
+	if a == nil || b == nil {
+		return nil
+	}
 	n := minLen(a, b)
 	prec := maxPrec(a, b)
 	out := newZero(n, prec)

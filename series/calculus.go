@@ -6,6 +6,9 @@ import "math/big"
 // length max(n-1, 1) (the derivative of a length-1 series is the zero series
 // of length 1), at the precision of a.
 func Deriv(a *Series) *Series {
+	if a == nil || a.prec == 0 {
+		return nil
+	}
 	n := len(a.c)
 	if n <= 1 {
 		return newZero(1, a.prec)
@@ -23,6 +26,9 @@ func Deriv(a *Series) *Series {
 // zero): the series c0 + sum a_k t^(k+1)/(k+1), of length n+1, at the
 // precision of a. The extra coefficient is exact: it only uses a_(n-1).
 func Integral(a *Series, c0 *big.Float) *Series {
+	if a == nil || a.prec == 0 {
+		return nil
+	}
 	n := len(a.c)
 	out := newZero(n+1, a.prec)
 	if c0 != nil {

@@ -7,8 +7,11 @@ import (
 
 // Eval returns the truncated polynomial s(x) = sum_k s_k x^k by Horner's
 // rule, carried out with guard bits and rounded to s.Prec(). A nil x is
-// taken as zero.
+// taken as zero. A nil or empty series gives nil.
 func Eval(s *Series, x *big.Float) *big.Float {
+	if s == nil || len(s.c) == 0 {
+		return nil
+	}
 	wp := elemWorkPrec(s.prec, len(s.c))
 	acc := new(big.Float).SetPrec(wp)
 	if x == nil {
@@ -25,6 +28,9 @@ func Eval(s *Series, x *big.Float) *big.Float {
 // Horner's rule, with guard bits, rounded to s.Prec(). Nil parts of z are
 // taken as zero.
 func EvalComplex(s *Series, z scalar.Complex) scalar.Complex {
+	if s == nil || len(s.c) == 0 {
+		return scalar.Complex{}
+	}
 	wp := elemWorkPrec(s.prec, len(s.c))
 	zz := scalar.NewComplex(z.Re, z.Im, wp)
 	acc := scalar.NewComplex(nil, nil, wp)
@@ -39,6 +45,9 @@ func EvalComplex(s *Series, z scalar.Complex) scalar.Complex {
 // k = 1..n (S_1 = s_0, S_n = s(x)), at s.Prec(): the raw sequence that
 // resummation and convergence tables start from. A nil x is taken as zero.
 func PartialSums(s *Series, x *big.Float) []*big.Float {
+	if s == nil {
+		return nil
+	}
 	n := len(s.c)
 	wp := elemWorkPrec(s.prec, n)
 	xx := new(big.Float).SetPrec(wp)

@@ -95,14 +95,27 @@ func Variable(n int, prec uint, x0 *big.Float) (*Series, error) {
 	return s, nil
 }
 
-// Len is the number of coefficients.
-func (s *Series) Len() int { return len(s.c) }
+// Len is the number of coefficients (0 for a nil series).
+func (s *Series) Len() int {
+	if s == nil {
+		return 0
+	}
+	return len(s.c)
+}
 
-// Prec is the working precision in bits.
-func (s *Series) Prec() uint { return s.prec }
+// Prec is the working precision in bits (0 for a nil series).
+func (s *Series) Prec() uint {
+	if s == nil {
+		return 0
+	}
+	return s.prec
+}
 
 // Coeff returns a copy of the coefficient of t^k; zero for k beyond the length.
 func (s *Series) Coeff(k int) *big.Float {
+	if s == nil {
+		return new(big.Float)
+	}
 	if k < 0 || k >= len(s.c) {
 		return new(big.Float).SetPrec(s.prec)
 	}
@@ -111,6 +124,9 @@ func (s *Series) Coeff(k int) *big.Float {
 
 // Coeffs returns copies of all coefficients.
 func (s *Series) Coeffs() []*big.Float {
+	if s == nil {
+		return nil
+	}
 	out := make([]*big.Float, len(s.c))
 	for i := range s.c {
 		out[i] = s.Coeff(i)
@@ -120,6 +136,9 @@ func (s *Series) Coeffs() []*big.Float {
 
 // SetCoeff sets the coefficient of t^k (0 <= k < Len) to v rounded to Prec.
 func (s *Series) SetCoeff(k int, v *big.Float) error {
+	if s == nil || v == nil {
+		return fmt.Errorf("series: SetCoeff on a nil series or with a nil value")
+	}
 	if k < 0 || k >= len(s.c) {
 		return fmt.Errorf("series: coefficient index %d out of range [0, %d)", k, len(s.c))
 	}
@@ -127,8 +146,11 @@ func (s *Series) SetCoeff(k int, v *big.Float) error {
 	return nil
 }
 
-// Copy returns a deep copy.
+// Copy returns a deep copy (nil for nil).
 func (s *Series) Copy() *Series {
+	if s == nil {
+		return nil
+	}
 	out := newZero(len(s.c), s.prec)
 	for i := range s.c {
 		out.c[i].Set(s.c[i])
@@ -140,6 +162,9 @@ func (s *Series) Copy() *Series {
 // when n exceeds the length (the padded terms are unknown, not zero, so only
 // pad when that is what you mean).
 func (s *Series) Truncate(n int) (*Series, error) {
+	if s == nil {
+		return nil, fmt.Errorf("series: Truncate of a nil series")
+	}
 	if err := CheckShape(n, s.prec); err != nil {
 		return nil, err
 	}
@@ -152,6 +177,9 @@ func (s *Series) Truncate(n int) (*Series, error) {
 
 // WithPrec returns a copy of s with every coefficient rounded to prec bits.
 func (s *Series) WithPrec(prec uint) (*Series, error) {
+	if s == nil {
+		return nil, fmt.Errorf("series: WithPrec of a nil series")
+	}
 	if err := CheckShape(len(s.c), prec); err != nil {
 		return nil, err
 	}
@@ -164,6 +192,9 @@ func (s *Series) WithPrec(prec uint) (*Series, error) {
 
 // String prints the coefficients with 10 significant digits, for debugging.
 func (s *Series) String() string {
+	if s == nil {
+		return "<nil>"
+	}
 	out := "["
 	for i, v := range s.c {
 		if i > 0 {

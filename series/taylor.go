@@ -11,9 +11,17 @@ import (
 // package. The result has the length and precision of s; taylor must have at
 // least s.Len() entries.
 func ComposeTaylor(taylor []*big.Float, s *Series) (*Series, error) {
+	if s == nil || len(s.c) == 0 || s.prec == 0 {
+		return nil, fmt.Errorf("series: ComposeTaylor of a nil or empty series")
+	}
 	n := len(s.c)
 	if len(taylor) < n {
 		return nil, fmt.Errorf("series: ComposeTaylor needs %d Taylor coefficients, got %d", n, len(taylor))
+	}
+	for k, c := range taylor[:n] {
+		if c == nil || c.IsInf() {
+			return nil, fmt.Errorf("series: ComposeTaylor: Taylor coefficient %d is nil or infinite", k)
+		}
 	}
 	prec := s.prec
 	out := newZero(n, prec)
