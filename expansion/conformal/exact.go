@@ -99,6 +99,9 @@ func exactValue(quantity string, q QPoint, digits int, method string, f func(QPo
 	if err := checkDigits(digits); err != nil {
 		return nil, err
 	}
+	if err := q.Check(); err != nil {
+		return nil, err
+	}
 	p1 := bitsFor(digits, 0)
 	p2 := secondPrec(p1)
 	lo, err := f(q, p1)

@@ -87,3 +87,24 @@ func TestDimensionEdges(t *testing.T) {
 		}
 	}
 }
+
+// The zero value QPoint{} and a q below 2 are refused with an error, not a
+// panic, by every entry point that takes a point.
+func TestBadPoints(t *testing.T) {
+	for _, q := range []QPoint{{}, {Q: big.NewFloat(1.5)}} {
+		if _, err := Dimension(q, 1, 20); err == nil {
+			t.Errorf("Dimension(%v): no error", q)
+		}
+		if _, err := B(q, 20); err == nil {
+			t.Errorf("B(%v): no error", q)
+		}
+		if _, err := S0(q, 20); err == nil {
+			t.Errorf("S0(%v): no error", q)
+		}
+		if _, err := Resum(QuantityS0, q, 0, 4, 20); err == nil {
+			t.Errorf("Resum(%v): no error", q)
+		}
+		_ = q.String()
+		_ = q.IsTwo()
+	}
+}

@@ -33,13 +33,28 @@ func ParseQ(text string, prec uint) (QPoint, error) {
 	return QPoint{Q: q}, nil
 }
 
+// Check returns an error unless p is q = infinity or a finite q >= 2 (the
+// zero value QPoint{} is not a point).
+func (p QPoint) Check() error {
+	if p.Inf {
+		return nil
+	}
+	if p.Q == nil || p.Q.IsInf() || p.Q.Cmp(big.NewFloat(2)) < 0 {
+		return fmt.Errorf("q must be a real number >= 2 or inf (got %v)", p)
+	}
+	return nil
+}
+
 // IsTwo reports q = 2 exactly.
-func (p QPoint) IsTwo() bool { return !p.Inf && p.Q.Cmp(big.NewFloat(2)) == 0 }
+func (p QPoint) IsTwo() bool { return !p.Inf && p.Q != nil && p.Q.Cmp(big.NewFloat(2)) == 0 }
 
 // String prints q.
 func (p QPoint) String() string {
 	if p.Inf {
 		return "inf"
+	}
+	if p.Q == nil {
+		return "<no q>"
 	}
 	return p.Q.Text('g', 20)
 }

@@ -107,6 +107,9 @@ func epsToXMinusHalf(s *series.Series) *series.Series {
 // table's best entry at each end, and the two-point Pade that matches both
 // ends, each with an error estimate, and the exact value beside them.
 func Resum(quantity string, q QPoint, n, order, digits int) (*Resummation, error) {
+	if err := q.Check(); err != nil {
+		return nil, err
+	}
 	if q.Inf {
 		return nil, fmt.Errorf("resummation needs a finite q (at q = inf the series around infinity is exact)")
 	}
