@@ -177,7 +177,7 @@ func coefficientsTable(c *conformal.Coefficients, end conformal.End, forms []*co
 		"around":       end.String(),
 		"variable":     end.Variable(),
 		"coefficients": valueStrings(c.Values, c.Errors, digitsFor(c.Prec)),
-		"errors":       errStrings(c.Errors),
+		"errors":       coeffErrs(c.Values, c.Errors),
 		"method":       c.Method,
 	}
 	if c.N >= 0 {
@@ -189,7 +189,7 @@ func coefficientsTable(c *conformal.Coefficients, end conformal.End, forms []*co
 	}
 	var texts, texs []string
 	for k, v := range c.Values {
-		row := []string{strconv.Itoa(k), fmtValue(v, c.Errors[k], digitsFor(c.Prec)), fmtErr(c.Errors[k])}
+		row := []string{strconv.Itoa(k), fmtValue(v, c.Errors[k], digitsFor(c.Prec)), coeffErr(v, c.Errors[k])}
 		if withForms {
 			text, tex := "", ""
 			if f := forms[k]; f != nil {
@@ -270,4 +270,25 @@ func digitsFor(prec uint) int {
 		return opts.Digits
 	}
 	return min(opts.Digits, max(int(float64(prec)*0.30103), 1))
+}
+
+// exactZero is printed as the error of a coefficient that vanishes by
+// construction (the 1/q series of E_0 and alpha_S start at 1/q^2).
+const exactZero = "exact"
+
+// coeffErr formats a coefficient's error: "exact" for a coefficient that
+// is zero with zero error (a structural zero), else as fmtErr.
+func coeffErr(v, e *big.Float) string {
+	if v != nil && e != nil && v.Sign() == 0 && e.Sign() == 0 {
+		return exactZero
+	}
+	return fmtErr(e)
+}
+
+func coeffErrs(vs, es []*big.Float) []string {
+	out := make([]string, len(es))
+	for i := range es {
+		out[i] = coeffErr(vs[i], es[i])
+	}
+	return out
 }
