@@ -193,12 +193,16 @@ func (p energyProvider) Resum(qp conformal.QPoint, r Request) (*Resummation, err
 	if err != nil {
 		return nil, err
 	}
+	// The orders actually used: coefficients the fits do not determine are
+	// dropped (energy.ResumGround). At infinity the resummed series is that
+	// of q^2 F, whose x^k is F's x^(k+2).
+	usedEps, usedX := res.AtTwo.Len()-1, res.AtInf.Len()+1
 	dv, de := d.E0, d.E0Err
 	if p.kind == energy.QuantityAlphaS {
 		dv, de = d.AlphaS, d.AlphaSErr
 	}
 	out := &Resummation{
-		Name: p.q.Name, Q: qp, OrderEps: eo, OrderX: xo,
+		Name: p.q.Name, Q: qp, OrderEps: usedEps, OrderX: usedX,
 		Reference: &Reference{Value: big.NewFloat(dv), Err: big.NewFloat(de), Kind: "direct",
 			Method: "direct Schwinger-Dyson solver: ladder of solves in beta and joint low-temperature fits of log Z and E"},
 		Published: energyPublished(p.kind, q),
@@ -207,9 +211,9 @@ func (p energyProvider) Resum(qp conformal.QPoint, r Request) (*Resummation, err
 			"Errors add the spread of the approximants and the shift under the coefficient error bars.",
 		},
 	}
-	if eo != r.Order || xo != r.Order {
-		out.Notes = append(out.Notes, fmt.Sprintf("order %d asked; used %d around q = 2 and %d around q = infinity (supported here: %d..%d and %d..%d)",
-			r.Order, eo, xo, energyResumMinEps, energyResumMaxEps, energyResumMinX, energyResumMaxX))
+	if usedEps != r.Order || usedX != r.Order {
+		out.Notes = append(out.Notes, fmt.Sprintf("order %d asked; used %d around q = 2 and %d around q = infinity (supported here: %d..%d and %d..%d; orders whose fitted coefficient is not determined, error >= value, are dropped)",
+			r.Order, usedEps, usedX, energyResumMinEps, energyResumMaxEps, energyResumMinX, energyResumMaxX))
 	}
 	for _, e := range res.Estimates {
 		ce := conformal.Estimate{Method: e.Method, Detail: e.Detail}

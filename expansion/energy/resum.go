@@ -235,6 +235,7 @@ func ResumGround(quantity string, q float64, eps, invq *GroundSeries) (*Resummat
 	default:
 		return nil, fmt.Errorf("%w: quantity must be %q or %q, got %q", ErrInput, QuantityE0, QuantityAlphaS, quantity)
 	}
+	a, b = resolved(a), resolved(b)
 	inf, two, err := Normalised(a, b)
 	if err != nil {
 		return nil, err
@@ -267,4 +268,20 @@ func tailBound(terms []float64) (float64, string) {
 		return math.NaN(), fmt.Sprintf("the terms do not decrease (ratio of the last two %.2g)", r)
 	}
 	return last + last*r/(1-r), "last term + geometric tail from the ratio of the last two terms"
+}
+
+// resolved returns the longest prefix of c whose coefficients the fits
+// determine: it stops before the first coefficient whose error is at least
+// its size (and above the float64 noise floor), since a resummation fed
+// an undetermined coefficient is steered by noise.
+func resolved(c Coeffs) Coeffs {
+	n := c.Len()
+	for k := 0; k < c.Len(); k++ {
+		e, v := c.Errors[k], math.Abs(c.Values[k])
+		if math.IsNaN(e) || math.IsInf(e, 0) || (e >= v && e > 1e-12) {
+			n = k
+			break
+		}
+	}
+	return Coeffs{Values: c.Values[:n], Errors: c.Errors[:n]}
 }
