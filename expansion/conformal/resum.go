@@ -136,6 +136,22 @@ func Resum(quantity string, q QPoint, n, order, digits int) (*Resummation, error
 		return nil, err
 	}
 	prec := bitsFor(digits, order)
+	r := &Resummation{Quantity: exact.Quantity, Q: q, N: exact.N, Order: order, Exact: exact}
+	if quantity != QuantityDims {
+		r.N = -1
+	}
+	if r.Estimates, err = resumEstimates(quantity, q, two, inf, prec); err != nil {
+		return nil, err
+	}
+	return r, nil
+}
+
+// resumEstimates evaluates at the finite q, at prec bits, the estimates of
+// Resum from the series two (in eps) and inf (in x) of the resummed
+// function: partial sums and the best Pade-table entries at each end, then
+// the two-point Pade, each with its error estimate (for b converted from
+// b^q at the end).
+func resumEstimates(quantity string, q QPoint, two, inf *Coefficients, prec uint) ([]Estimate, error) {
 	eps := q.Eps(prec)
 	x := q.X(prec)
 	st, err := two.toSeries(prec)
@@ -146,21 +162,19 @@ func Resum(quantity string, q QPoint, n, order, digits int) (*Resummation, error
 	if err != nil {
 		return nil, err
 	}
-	r := &Resummation{Quantity: exact.Quantity, Q: q, N: exact.N, Order: order, Exact: exact}
-	if quantity != QuantityDims {
-		r.N = -1
-	}
+	var out []Estimate
 	add := func(e Estimate) {
 		if quantity == QuantityB {
 			e = bFromBq(e, q, prec)
 		}
-		r.Estimates = append(r.Estimates, e)
+		out = append(out, e)
 	}
 	for _, end := range []struct {
 		name string
+		c    *Coefficients
 		s    *series.Series
 		at   *big.Float
-	}{{"eps", st, eps}, {"1/q", si, x}} {
+	}{{"eps", two, st, eps}, {"1/q", inf, si, x}} {
 		add(partialSumEstimate(end.name, end.s, end.at))
 		if pt, err := pade.PadeTable(end.s, end.at, pade.PadeTableOptions{}); err == nil {
 			add(Estimate{Method: end.name + " Pade", Value: pt.Value, Err: pt.Err,
@@ -177,7 +191,7 @@ func Resum(quantity string, q QPoint, n, order, digits int) (*Resummation, error
 	} else {
 		add(Estimate{Method: "two-point Pade", Detail: "failed: " + err.Error()})
 	}
-	return r, nil
+	return out, nil
 }
 
 // partialSumEstimate returns the last partial sum at the point, with the
