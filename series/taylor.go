@@ -46,15 +46,38 @@ func ComposeTaylor(taylor []*big.Float, s *Series) (*Series, error) {
 		return out, nil
 	}
 	// Horner in u = s - s(0): (((a_{n-1} u + a_{n-2}) u + ...) u + a_0.
-	// u has zero constant term, so u^k only touches t^k and above; truncation
-	// keeps everything at length n.
-	u := s.Copy()
-	u.c[0].SetInt64(0)
-	acc := newZero(n, prec)
-	acc.c[0].Set(taylor[n-1])
+	// After the step that adds a_k the accumulator is still to be multiplied
+	// by u^k, which has valuation k, so only its first n-k coefficients can
+	// reach the result: the accumulator grows by one coefficient per step,
+	// and the composition costs about n^3/6 products instead of n^3/2.
+	u := s.c
+	acc := make([]*big.Float, 1, n)
+	acc[0] = new(big.Float).SetPrec(prec).Set(taylor[n-1])
+	t := new(big.Float).SetPrec(prec)
 	for k := n - 2; k >= 0; k-- {
-		acc = Mul(acc, u)
-		acc.c[0].Add(acc.c[0], taylor[k])
+		acc = mulByShifted(acc, u, t, prec)
+		acc[0].Set(taylor[k])
 	}
-	return acc, nil
+	out.c = acc
+	return out, nil
+}
+
+// mulByShifted returns the first len(acc)+1 coefficients of acc * (u -
+// u(0)), whose constant term is zero; t is scratch space.
+func mulByShifted(acc, u []*big.Float, t *big.Float, prec uint) []*big.Float {
+	l := len(acc)
+	next := make([]*big.Float, l+1)
+	next[0] = new(big.Float).SetPrec(prec)
+	for m := 1; m <= l; m++ {
+		sum := new(big.Float).SetPrec(prec)
+		for i := 0; i < m; i++ {
+			if acc[i].Sign() == 0 || u[m-i].Sign() == 0 {
+				continue
+			}
+			t.Mul(acc[i], u[m-i])
+			sum.Add(sum, t)
+		}
+		next[m] = sum
+	}
+	return next
 }

@@ -24,6 +24,24 @@ type term struct {
 	coef int64
 	kind funcKind
 	a, b *series.Series
+	// tay caches the Taylor coefficients of log Gamma at tayAt: within one
+	// series Newton iteration u(0) = a(0) + b(0) y(0) stays fixed.
+	tayAt *big.Float
+	tay   []*big.Float
+}
+
+// logGammaTaylor returns at least n Taylor coefficients of log Gamma at u0,
+// from the term's cache when it holds them.
+func (tm *term) logGammaTaylor(u0 *big.Float, n int, prec uint) ([]*big.Float, error) {
+	if tm.tayAt != nil && len(tm.tay) >= n && tm.tayAt.Cmp(u0) == 0 && tm.tayAt.Prec() == prec {
+		return tm.tay, nil
+	}
+	tay, err := scalar.LogGammaTaylor(u0, n, prec)
+	if err != nil {
+		return nil, err
+	}
+	tm.tayAt, tm.tay = new(big.Float).SetPrec(prec).Set(u0), tay
+	return tay, nil
 }
 
 // logEquation is sum_i coef_i f_i(a_i + b_i y) = 0: the logarithm of a
@@ -36,6 +54,10 @@ type logEquation struct {
 	terms []term
 	logS  int64
 	sign  int // sign of the constant factors dropped from the product
+	// tayLen is how many Taylor coefficients of log Gamma to compute at
+	// once (the full length of a series root), so that the short early
+	// Newton steps fill the cache for the later ones.
+	tayLen int
 }
 
 func newLogEquation(prec uint) *logEquation {
@@ -132,7 +154,8 @@ func (e *logEquation) eval(y *series.Series) (*evaluation, error) {
 		return nil, fmt.Errorf("expansion: internal error: %d uncancelled powers of the expansion variable", e.logS)
 	}
 	var L, Ly *series.Series
-	for _, tm := range e.terms {
+	for i := range e.terms {
+		tm := &e.terms[i]
 		u := series.Add(tm.a, series.Mul(tm.b, y))
 		if u.Coeff(0).Sign() == 0 {
 			return nil, errors.New("expansion: argument of a logarithm or pole of Gamma reached")
@@ -141,19 +164,27 @@ func (e *logEquation) eval(y *series.Series) (*evaluation, error) {
 		var err error
 		switch tm.kind {
 		case kindLogGamma:
+			// One composition: psi(u) = (log Gamma)'(u) from its Taylor
+			// coefficients, and log Gamma(u) as the integral of psi(u) u'
+			// from log Gamma(u(0)).
 			n := u.Len()
-			tay, terr := scalar.LogGammaTaylor(u.Coeff(0), n+1, e.prec)
+			tay, terr := tm.logGammaTaylor(u.Coeff(0), max(n+1, e.tayLen), e.prec)
 			if terr != nil {
 				return nil, terr
-			}
-			if f, err = series.ComposeTaylor(tay[:n], u); err != nil {
-				return nil, err
 			}
 			dtay := make([]*big.Float, n)
 			for k := 0; k < n; k++ {
 				dtay[k] = new(big.Float).SetPrec(e.prec).Mul(tay[k+1], new(big.Float).SetInt64(int64(k+1)))
 			}
 			if df, err = series.ComposeTaylor(dtay, u); err != nil {
+				return nil, err
+			}
+			if n == 1 {
+				f, err = series.FromBig(e.prec, tay[:1])
+			} else {
+				f, err = series.Integral(series.Mul(df, series.Deriv(u)), tay[0]), nil
+			}
+			if err != nil {
 				return nil, err
 			}
 		case kindLog:
@@ -410,11 +441,33 @@ func (e *logEquation) seriesRoot(y0 *big.Float, n int) (*series.Series, *big.Flo
 	if err := y.SetCoeff(0, y0); err != nil {
 		return nil, nil, err
 	}
+	e.tayLen = n + 1
+	defer func() { e.tayLen = 0 }()
+	// Newton on series doubles the number of correct coefficients per
+	// step, so the early steps run on truncations of length 2, 4, 8, ...:
+	// together they cost about one step at full length.
+	for l := 2; l < n; l *= 2 {
+		yl, err := y.Truncate(l)
+		if err != nil {
+			return nil, nil, err
+		}
+		ev, err := e.eval(yl)
+		if err != nil {
+			return nil, nil, err
+		}
+		corr, err := series.Div(ev.L, ev.Ly)
+		if err != nil {
+			return nil, nil, err
+		}
+		yl = series.Sub(yl, corr)
+		for k := 1; k < l; k++ {
+			if err := y.SetCoeff(k, yl.Coeff(k)); err != nil {
+				return nil, nil, err
+			}
+		}
+	}
 	var last *big.Float
 	maxIter := 8
-	for m := 1; m < n; m *= 2 {
-		maxIter++
-	}
 	for it := 0; it < maxIter; it++ {
 		ev, err := e.eval(y)
 		if err != nil {
