@@ -41,3 +41,14 @@ func BenchmarkDimensionsExact20(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkDimensionSeriesH1 is the case compared with the mpmath
+// reference testdata/cauchy_dims.py: h_1 around q = 2 to order 40 at 40
+// digits.
+func BenchmarkDimensionSeriesH1(b *testing.B) {
+	for i := 0; i < b.N; i++ {
+		if _, err := DimensionSeries(AroundTwo, 1, 40, 40); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
