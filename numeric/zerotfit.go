@@ -76,10 +76,10 @@ type ZeroTFit struct {
 // ZeroTGround is the zero-temperature extraction of alpha_G and E_0 at one
 // q (SolveZeroTGround).
 type ZeroTGround struct {
-	Q                 float64 // interaction order
-	Dims              []float64
-	AlphaG, AlphaGErr float64 // coefficient of -1/(script-J tau) in G/G_c - 1, and its error
-	E0, E0Err         float64 // ground-state energy from the same solution, and its error
+	Q                 float64   // interaction order
+	Dims              []float64 // the exact h_1, h_2, ... whose corrections |tau|^-(h_n - 1) are fitted
+	AlphaG, AlphaGErr float64   // coefficient of -1/(script-J tau) in G/G_c - 1, and its error
+	E0, E0Err         float64   // ground-state energy from the same solution, and its error
 	// FitSpread, FitStat and SolverSpread are the parts of AlphaGErr: half
 	// the range of the accepted fits, their median statistical error, and
 	// the largest change of the result under the solver variations.
