@@ -43,18 +43,9 @@ except ImportError:
     sys.exit(0)
 
 
-def kA(h, q):
-    D = 1 / q
-    pre = -(q - 1) * mp.gamma(1.5 - D) * mp.gamma(1 - D) / (mp.gamma(0.5 + D) * mp.gamma(D))
-    return pre * mp.gamma(D + h / 2) * mp.gamma(0.5 + D - h / 2) / (mp.gamma(1.5 - D - h / 2) * mp.gamma(1 - D + h / 2))
-
-
-def real_root(q, n):
-    """h_n at real q > 2: the root between the pole and the zero."""
-    lo = 2 * n + 1 + 2 / q
-    hi = 2 * n + 3 - 2 / q
-    w = hi - lo
-    return mp.findroot(lambda h: kA(h, q) - 1, (lo + w * mp.mpf("1e-6"), hi - w * mp.mpf("1e-6")), solver="anderson")
+# k_A and the bracketed real root are the golden-file script's, so that the
+# two mpmath references share one transcription of the formula.
+from gen_conformal import kA, root as real_root  # noqa: E402
 
 
 def coefficients(n, order, r, npts):
