@@ -181,20 +181,9 @@ func energySets(atInf, atTwo energy.Coeffs) ([]*twoPointSet, error) {
 	}
 	sets := []*twoPointSet{central}
 	rng := rand.New(rand.NewPCG(1, 2))
-	perturb := func(c energy.Coeffs) []float64 {
-		out := make([]float64, c.Len())
-		for k := range out {
-			s := 1.0
-			if rng.IntN(2) == 0 {
-				s = -1
-			}
-			out[k] = c.Values[k] + s*c.Errors[k]
-		}
-		return out
-	}
 	for i := 0; i < energyCoefficientSamples; i++ {
-		a := perturb(atInf)
-		b := perturb(atTwo)
+		a := atInf.SignPerturbed(rng)
+		b := atTwo.SignPerturbed(rng)
 		s, err := build(a, b)
 		if err != nil {
 			s = nil

@@ -2,6 +2,7 @@ package numeric
 
 import (
 	"math"
+	"math/rand/v2"
 	"sort"
 )
 
@@ -17,6 +18,21 @@ type Coeffs struct {
 
 // Len is the number of coefficients.
 func (c Coeffs) Len() int { return len(c.Values) }
+
+// SignPerturbed returns the values each moved by its error with a random
+// sign drawn from rng: one corner of the box the error bars span, the
+// sample that coefficient-error propagation by resampling uses.
+func (c Coeffs) SignPerturbed(rng *rand.Rand) []float64 {
+	out := make([]float64, c.Len())
+	for k := range out {
+		s := 1.0
+		if rng.IntN(2) == 0 {
+			s = -1
+		}
+		out[k] = c.Values[k] + s*c.Errors[k]
+	}
+	return out
+}
 
 // MedianSpread returns the median of v and half its range, the robust
 // central value and spread of a set of estimates (NaN, NaN for an empty v).

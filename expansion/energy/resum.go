@@ -177,20 +177,9 @@ func withCoefficientErrors2(a, b Coeffs, f func(a, b []float64) (*pade.Resummed,
 	trunc, _ := r.Err.Float64()
 	rng := rand.New(rand.NewPCG(1, 2))
 	shift := 0.0
-	perturb := func(c Coeffs) []float64 {
-		out := make([]float64, c.Len())
-		for k := range out {
-			s := 1.0
-			if rng.IntN(2) == 0 {
-				s = -1
-			}
-			out[k] = c.Values[k] + s*c.Errors[k]
-		}
-		return out
-	}
 	failed := 0
 	for i := 0; i < coefficientSamples; i++ {
-		rp, err := f(perturb(a), perturb(b))
+		rp, err := f(a.SignPerturbed(rng), b.SignPerturbed(rng))
 		if err != nil {
 			// A resummation that fails inside the coefficient error bars is
 			// not robust there: its shift is unknown, so is the error.
