@@ -779,6 +779,21 @@ func parallelDo(n int, f func(i int)) {
 	}
 }
 
+// plotSeriesArgs resolves the quantity argument and --around of the
+// coefficient and pole figures and returns the series there.
+func plotSeriesArgs(args []string) (conformal.End, *conformal.Coefficients, *expansion.Approximant, error) {
+	name, err := plotName(args)
+	if err != nil {
+		return 0, nil, nil, err
+	}
+	end, err := parseEnd(plotFlags.around)
+	if err != nil {
+		return 0, nil, nil, err
+	}
+	c, a, err := plotSeries(name, end)
+	return end, c, a, err
+}
+
 // plotSeries returns the coefficients of the quantity's resummed function
 // around the end (those Resum uses: of b^q for b).
 func plotSeries(name string, end conformal.End) (*conformal.Coefficients, *expansion.Approximant, error) {
@@ -797,15 +812,7 @@ func runPlotCoefficients(cmd *cobra.Command, args []string) error {
 	if err != nil {
 		return err
 	}
-	name, err := plotName(args)
-	if err != nil {
-		return err
-	}
-	end, err := parseEnd(plotFlags.around)
-	if err != nil {
-		return err
-	}
-	c, a, err := plotSeries(name, end)
+	end, c, a, err := plotSeriesArgs(args)
 	if err != nil {
 		return err
 	}
@@ -872,15 +879,7 @@ func runPlotPoles(cmd *cobra.Command, args []string) error {
 	if plotFlags.height == "" {
 		h = w
 	}
-	name, err := plotName(args)
-	if err != nil {
-		return err
-	}
-	end, err := parseEnd(plotFlags.around)
-	if err != nil {
-		return err
-	}
-	c, a, err := plotSeries(name, end)
+	end, c, a, err := plotSeriesArgs(args)
 	if err != nil {
 		return err
 	}
