@@ -103,16 +103,22 @@ const (
 	MethodPartialEps = "eps partial sum"
 	// MethodPadeEps is the best pole-free Pade-table entry of the eps series.
 	MethodPadeEps = "eps Pade"
+	// MethodConfMapEps is the conformal-mapping resummation of the eps
+	// series: the plane cut from its nearest singularities mapped onto the
+	// unit disc, the series re-expanded there and Pade-resummed.
+	MethodConfMapEps = "eps conformal map"
 	// MethodPartialX is the partial sum of the series in x = 1/q.
 	MethodPartialX = "1/q partial sum"
 	// MethodPadeX is the best pole-free Pade-table entry of the x series.
 	MethodPadeX = "1/q Pade"
+	// MethodConfMapX is the conformal-mapping resummation of the x series.
+	MethodConfMapX = "1/q conformal map"
 	// MethodTwoPoint is the two-point Pade matching both series.
 	MethodTwoPoint = "two-point Pade"
 )
 
 // MethodOrder is the order in which resummation methods are listed.
-var MethodOrder = []string{MethodPartialEps, MethodPadeEps, MethodPartialX, MethodPadeX, MethodTwoPoint}
+var MethodOrder = []string{MethodPartialEps, MethodPadeEps, MethodConfMapEps, MethodPartialX, MethodPadeX, MethodConfMapX, MethodTwoPoint}
 
 // sortEstimates puts estimates into MethodOrder (unknown methods last, in
 // their given order).

@@ -118,7 +118,7 @@ func TestSeriesNamesAgree(t *testing.T) {
 // arXiv:1604.07818) within its errors.
 func TestResumMethodsOrder(t *testing.T) {
 	m := runJSON(t, "resum", "h_1", "--q", "4", "--order", "12")
-	want := []string{"eps partial sum", "eps Pade", "1/q partial sum", "1/q Pade", "two-point Pade"}
+	want := []string{"eps partial sum", "eps Pade", "eps conformal map", "1/q partial sum", "1/q Pade", "1/q conformal map", "two-point Pade"}
 	got, _ := m["methods"].([]any)
 	if len(got) != len(want) {
 		t.Fatalf("methods %v", got)

@@ -2,7 +2,6 @@ package conformal
 
 import (
 	"fmt"
-	"math/big"
 
 	"qbridge/series"
 	"qbridge/series/pade"
@@ -57,47 +56,15 @@ func FromResummed(quantity string, e Estimate, q QPoint, prec uint) Estimate {
 
 // ResumFrom is Resum's evaluation at one finite q from series computed
 // before (TwoEndSeries, or a stored copy of them), at prec bits
-// (ResumPrec): the partial sums and the best pole-free Pade-table entries
-// at each end, and the two-point Pade, in that order, each with its error.
-// It gives the same estimates as Resum for the same series.
+// (ResumPrec): the partial sum, the best pole-free Pade-table entry and
+// the conformal-mapping resummation at each end, and the two-point Pade,
+// in that order, each with its error. It gives the same estimates as
+// Resum for the same series.
 func ResumFrom(quantity string, q QPoint, two, inf *Coefficients, prec uint) ([]Estimate, error) {
 	if q.Inf || q.Q == nil {
 		return nil, fmt.Errorf("resummation needs a finite q (at q = inf the series around infinity is exact)")
 	}
-	eps := q.Eps(prec)
-	x := q.X(prec)
-	st, err := two.toSeries(prec)
-	if err != nil {
-		return nil, err
-	}
-	si, err := inf.toSeries(prec)
-	if err != nil {
-		return nil, err
-	}
-	var out []Estimate
-	add := func(e Estimate) { out = append(out, FromResummed(quantity, e, q, prec)) }
-	for _, end := range []struct {
-		name string
-		s    *series.Series
-		at   *big.Float
-	}{{"eps", st, eps}, {"1/q", si, x}} {
-		add(partialSumEstimate(end.name, end.s, end.at))
-		if pt, err := pade.PadeTable(end.s, end.at, pade.PadeTableOptions{}); err == nil {
-			add(Estimate{Method: end.name + " Pade", Value: pt.Value, Err: pt.Err,
-				Detail: fmt.Sprintf("[%d/%d], %d entries; %s", pt.L, pt.M, pt.Used, pt.Method)})
-		} else {
-			add(Estimate{Method: end.name + " Pade", Detail: "failed: " + err.Error()})
-		}
-	}
-	half := bigFrac(1, 2, prec)
-	zero := new(big.Float).SetPrec(prec)
-	if tp, err := pade.ResumTwoPoint(si, zero, epsToXMinusHalf(st), half, x, pade.TwoPointOptions{}); err == nil {
-		add(Estimate{Method: "two-point Pade", Value: tp.Value, Err: tp.Err,
-			Detail: TwoPointDetail(tp)})
-	} else {
-		add(Estimate{Method: "two-point Pade", Detail: "failed: " + err.Error()})
-	}
-	return out, nil
+	return resumEstimates(quantity, q, two, inf, prec)
 }
 
 // TwoPointDetail is the Detail string Resum gives a two-point estimate.
