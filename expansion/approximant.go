@@ -20,8 +20,9 @@ type Approximant struct {
 	// Name is the printed name (h_1, b, S_0, E_0, alpha_S).
 	Name string
 	// Function is the function the two-point Pade approximates, in the
-	// variable x = 1/q: the quantity itself for h_n and S_0, b^q for b,
-	// q^2 E_0 and q^2 alpha_S for the energies (finite at both ends).
+	// variable x = 1/q: the quantity itself for h_n, S_0 and alpha_K, b^q
+	// for b, q^2 E_0 and q^2 alpha_S for the energies, q alpha_G (finite
+	// at both ends).
 	Function string
 	// OrderEps and OrderX are the orders of the series used around q = 2
 	// and q = infinity.
@@ -33,7 +34,8 @@ type Approximant struct {
 	// cache or a fresh computation).
 	Notes []string
 
-	kind    string // conformal.QuantityDims, QuantityB, QuantityS0, energy.QuantityE0 or QuantityAlphaS
+	kind    string // conformal.QuantityDims, QuantityB, QuantityS0, energy.QuantityE0, QuantityAlphaS, QuantityAlphaG or QuantityAlphaK
+	pow     int    // energies: the power p of the approximated q^p F (energy.SoftPower)
 	n       int
 	exact   bool
 	prec    uint
@@ -123,14 +125,14 @@ func newEnergyApproximant(p energyProvider, order int, cache *Cache) (*Approxima
 	if errI != nil {
 		return nil, errI
 	}
-	a, b := ge.E0, gi.E0
-	if p.kind == energy.QuantityAlphaS {
-		a, b = ge.AlphaS, gi.AlphaS
+	// As energy.ResumGround: only the orders the fits determine (for
+	// alpha_G and alpha_K, those of alpha_S times the exact factor series).
+	a, b, pw, err := energy.ResumSeries(p.kind, ge, gi)
+	if err != nil {
+		return nil, inputErr(err)
 	}
-	// As energy.ResumGround: only the orders the fits determine.
-	a, b = resolvedCoeffs(a), resolvedCoeffs(b)
 	eo, xo = a.Len()-1, b.Len()-1
-	atInf, atTwo, err := energy.Normalised(a, b)
+	atInf, atTwo, err := energy.NormalisedPower(a, b, pw)
 	if err != nil {
 		return nil, inputErr(err)
 	}
@@ -143,15 +145,20 @@ func newEnergyApproximant(p energyProvider, order int, cache *Cache) (*Approxima
 		return nil, err
 	}
 	name := p.q.Name
+	fn := normalisedName(pw, name)
+	from := "from low-temperature fits of the finite-temperature series"
+	if p.soft() {
+		from = "the alpha_S series (low-temperature fits of the finite-temperature series) times the exact series of " + name + "/alpha_S"
+	}
 	ap := &Approximant{
-		Name: name, Function: "q^2 " + name, OrderEps: eo, OrderX: xo,
+		Name: name, Function: fn, OrderEps: eo, OrderX: xo,
 		Two: &conformal.Coefficients{Quantity: name, End: conformal.AroundTwo, N: -1, Values: bigs(a.Values), Errors: bigs(a.Errors), Prec: 53,
 			Method: fmt.Sprintf("low-temperature fits over beta = %.4g..%.4g", ge.BetaMin, ge.BetaMax)},
 		Inf: &conformal.Coefficients{Quantity: name, End: conformal.AroundInf, N: -1, Values: bigs(b.Values), Errors: bigs(b.Errors), Prec: 53,
 			Method: fmt.Sprintf("low-temperature fits over beta = %.4g..%.4g", gi.BetaMin, gi.BetaMax)},
-		Notes: []string{fmt.Sprintf("%s: series to order %d around q = 2 (%s) and %d around q = infinity (%s), from low-temperature fits of the finite-temperature series; the two-point Pade approximates q^2 %s in x = 1/q, its error adds the spread of the approximants and the shift under the coefficient error bars",
-			name, eo, ne, xo, ni, name)},
-		kind: p.kind, n: -1, prec: resumPrecEnergy, sets: sets, lower: lower, normInf: atInf, normTwo: atTwo,
+		Notes: []string{fmt.Sprintf("%s: series to order %d around q = 2 (%s) and %d around q = infinity (%s), %s; the two-point Pade approximates %s in x = 1/q, its error adds the spread of the approximants and the shift under the coefficient error bars",
+			name, eo, ne, xo, ni, from, fn)},
+		kind: p.kind, pow: pw, n: -1, prec: resumPrecEnergy, sets: sets, lower: lower, normInf: atInf, normTwo: atTwo,
 	}
 	if eo != order || xo != order {
 		ap.Notes = append(ap.Notes, fmt.Sprintf("%s: order %d asked; used %d around q = 2 and %d around q = infinity (supported here: %d..%d and %d..%d; orders whose fitted coefficient is not determined, error >= value, are dropped)",
@@ -191,22 +198,6 @@ func energySets(atInf, atTwo energy.Coeffs) ([]*twoPointSet, error) {
 		sets = append(sets, s)
 	}
 	return sets, nil
-}
-
-// resolvedCoeffs keeps the longest prefix of c whose coefficients the
-// fits determine, the rule of energy.ResumGround: it stops before the first
-// coefficient whose error is at least its size (and above 1e-12), or is
-// not finite. A test holds the approximant to ResumGround's values.
-func resolvedCoeffs(c energy.Coeffs) energy.Coeffs {
-	n := c.Len()
-	for k := 0; k < c.Len(); k++ {
-		e, v := c.Errors[k], math.Abs(c.Values[k])
-		if math.IsNaN(e) || math.IsInf(e, 0) || (e >= v && e > 1e-12) {
-			n = k
-			break
-		}
-	}
-	return energy.Coeffs{Values: c.Values[:n], Errors: c.Errors[:n]}
 }
 
 // energyLowerSet is the central two-point set from the series one order
@@ -254,8 +245,9 @@ func qFloat(q conformal.QPoint) float64 {
 
 // TwoPoint returns the two-point Pade estimate at q with its error, the
 // same value and error that Resum gives, without recomputing a series. At
-// q = infinity it is the x^0 term of the series there (h_n, S_0), b = 1, or
-// 0 for E_0 and alpha_S, which vanish like 1/q^2 (Err nil: exact limit).
+// q = infinity it is the x^0 term of the series there (h_n, S_0, alpha_K),
+// b = 1, or 0 for E_0, alpha_S and alpha_G, which vanish like 1/q^2 and
+// 1/q (Err nil: exact limit).
 func (a *Approximant) TwoPoint(q conformal.QPoint) (conformal.Estimate, error) {
 	if a.sets != nil {
 		return a.energyTwoPoint(q)
@@ -269,18 +261,25 @@ func (a *Approximant) TwoPoint(q conformal.QPoint) (conformal.Estimate, error) {
 	if err != nil {
 		return conformal.Estimate{Method: MethodTwoPoint, Detail: "failed: " + err.Error()}, err
 	}
-	e := conformal.Estimate{Method: MethodTwoPoint, Value: r.Value, Err: r.Err, Detail: conformal.TwoPointDetail(r)}
-	return conformal.FromResummed(a.kind, e, q, a.prec), nil
+	return conformal.FromResummed(a.kind, conformal.TwoPointEstimate(r), q, a.prec), nil
 }
 
 func (a *Approximant) energyTwoPoint(q conformal.QPoint) (conformal.Estimate, error) {
 	if q.Inf {
+		if a.pow == 0 {
+			e := conformal.Estimate{Method: MethodTwoPoint, Value: big.NewFloat(a.normInf.Values[0]),
+				Detail: fmt.Sprintf("q = infinity: the x^0 coefficient of the series of %s there", a.Name)}
+			if er := a.normInf.Errors[0]; er > 0 && finite(er) {
+				e.Err = big.NewFloat(er)
+			}
+			return e, nil
+		}
 		return conformal.Estimate{Method: MethodTwoPoint, Value: new(big.Float),
-			Detail: fmt.Sprintf("q = infinity: %s vanishes like 1/q^2 (q^2 %s -> %.6g)", a.Name, a.Name, a.normInf.Values[0])}, nil
+			Detail: fmt.Sprintf("q = infinity: %s vanishes like 1/q^%d (%s -> %.6g)", a.Name, a.pow, a.Function, a.normInf.Values[0])}, nil
 	}
 	qf := qFloat(q)
 	x := 1 / qf
-	q2 := 1 / (x * x)
+	xp := math.Pow(x, float64(a.pow))
 	bx := big.NewFloat(x)
 	r, err := a.sets[0].at(bx)
 	if err != nil {
@@ -300,7 +299,7 @@ func (a *Approximant) energyTwoPoint(q conformal.QPoint) (conformal.Estimate, er
 		w, _ := rp.Value.Float64()
 		shift = math.Max(shift, math.Abs(w-v))
 	}
-	return energyEstimate(energy.Estimate{Method: MethodTwoPoint, Value: v / q2, Err: (trunc + shift) / q2, Detail: r.Method}), nil
+	return energyEstimate(energy.Estimate{Method: MethodTwoPoint, Value: v * xp, Err: (trunc + shift) * xp, Detail: r.Method}), nil
 }
 
 // TableEstimate is TwoPoint with an error that also covers the change of
@@ -322,7 +321,7 @@ func (a *Approximant) TableEstimate(q conformal.QPoint) (conformal.Estimate, err
 			return e, fmt.Errorf("two-point Pade one order lower: %w", err)
 		}
 		v, _ := r.Value.Float64()
-		lo = big.NewFloat(v * x * x)
+		lo = big.NewFloat(v * math.Pow(x, float64(a.pow)))
 	} else {
 		r, err := a.lower.at(q.X(a.prec))
 		if err != nil {
@@ -396,7 +395,7 @@ func (a *Approximant) Estimates(q conformal.QPoint) ([]conformal.Estimate, error
 	}
 	var out []conformal.Estimate
 	if a.sets != nil {
-		es, err := energy.Resum(qFloat(q), a.normInf, a.normTwo)
+		es, err := energy.ResumPower(qFloat(q), a.pow, a.normInf, a.normTwo)
 		if err != nil {
 			return nil, inputErr(err)
 		}

@@ -9,22 +9,34 @@ import (
 
 	"qbridge/expansion/conformal"
 	"qbridge/expansion/energy"
+	"qbridge/series/scalar"
 )
 
-// energyProvider serves E_0 and alpha_S from package energy.
+// energyProvider serves E_0, alpha_S, alpha_G and alpha_K from package
+// energy.
 type energyProvider struct {
 	q    Quantity
-	kind string // energy.QuantityE0 or energy.QuantityAlphaS
+	kind string // energy.QuantityE0, QuantityAlphaS, QuantityAlphaG or QuantityAlphaK
+}
+
+// soft reports alpha_G or alpha_K, served from the alpha_S series times
+// exact factors (energy.SoftSeries) and from the zero-temperature route.
+func (p energyProvider) soft() bool {
+	return p.kind == energy.QuantityAlphaG || p.kind == energy.QuantityAlphaK
 }
 
 // logZProvider serves log Z (and E) at one inverse temperature.
 type logZProvider struct{ q Quantity }
 
 func init() {
-	register(energyProvider{Quantity{Name: E0, Aliases: []string{"e0"}, Unit: "script-J",
+	register(energyProvider{Quantity{Name: E0, Aliases: []string{"e0"}, Unit: "script-J", Scaling: ScaleEnergy,
 		Summary: "ground-state energy per Majorana fermion"}, energy.QuantityE0})
-	register(energyProvider{Quantity{Name: AlphaS, Aliases: []string{"alpha", "alphas"}, Unit: "1 (action N alpha_S/script-J)",
+	register(energyProvider{Quantity{Name: AlphaS, Aliases: []string{"alpha", "alphas"}, Unit: "1 (action N alpha_S/script-J)", Scaling: ScaleInverseEnergy,
 		Summary: "Schwarzian (soft-mode) coefficient: E = E_0 + 2 pi^2 alpha_S T^2 + ..."}, energy.QuantityAlphaS})
+	register(energyProvider{Quantity{Name: AlphaG, Aliases: []string{"alphag"}, Unit: "1 (G/G_c = 1 - alpha_G/(script-J |tau|) + ...)", Scaling: ScaleInverseEnergy,
+		Summary: "T = 0 soft-mode correction: G = G_c [1 - alpha_G/(script-J |tau|) + ...]; alpha_K = -q k_A'(2) alpha_G"}, energy.QuantityAlphaG})
+	register(energyProvider{Quantity{Name: AlphaK, Aliases: []string{"alphak"}, Unit: "1 (k(2,n) = 1 - alpha_K |n|/(beta script-J) + ...)", Scaling: ScaleInverseEnergy,
+		Summary: "finite-T shift of the h = 2 kernel eigenvalue: k(2, n) = 1 - alpha_K |n|/(beta script-J); alpha_S = alpha_K/(6 q^2 alpha_0)"}, energy.QuantityAlphaK})
 	register(logZProvider{Quantity{Name: LogZ, Aliases: []string{"logz", "log z"}, Unit: "1 (per Majorana fermion)", NeedsBeta: true,
 		Summary: "log Z per Majorana fermion at inverse temperature beta (with E beside it)"}})
 }
@@ -122,6 +134,9 @@ func (p energyProvider) Series(r Request) (*SeriesResult, error) {
 	if err := p.check(r); err != nil {
 		return nil, err
 	}
+	if p.soft() {
+		return p.softSeries(r)
+	}
 	if err := checkEnergyOrder(r.End, r.Order); err != nil {
 		return nil, err
 	}
@@ -133,20 +148,89 @@ func (p energyProvider) Series(r Request) (*SeriesResult, error) {
 	if p.kind == energy.QuantityAlphaS {
 		c = g.AlphaS
 	}
-	var notes []string
-	if r.End == conformal.AroundTwo {
-		notes = append(notes, "Perturbation theory of the SD equations in delta = q - 2 at finite beta (per-frequency algebraic solves, sources by pointwise series arithmetic), converted to eps by delta = 2 eps/(1-eps) on every grid, Richardson-extrapolated in the grid spacing.")
-	} else {
-		notes = append(notes, "G = (1/2) sgn(tau)[1 + g_1/q + ...]: g_1 the Liouville solution, each g_k from Liouville's fluctuation operator with local and non-local sources, at finite beta, Richardson-extrapolated in the grid spacing.")
-	}
-	method := fmt.Sprintf("low-temperature fits of log Z_k = -beta E_0k + S_0k + 2 pi^2 alpha_Sk/beta + corrections over %d temperatures, beta = %.4g..%.4g; errors = spread over fit windows and models + propagated data errors", len(g.Ladder), g.BetaMin, g.BetaMax)
-	notes = append(notes, method+".", "log Z is evaluated from the converged G and Sigma at every order (the stationarity of log Z is not used).")
+	notes, method := groundNotes(r.End, g)
 	coeffs := &conformal.Coefficients{Quantity: p.q.Name, End: r.End, N: -1, Values: bigs(c.Values), Errors: bigs(c.Errors), Method: method, Prec: 53}
 	return &SeriesResult{
 		Parts: []*conformal.Coefficients{coeffs},
 		Check: &SeriesCheck{Name: S0, Fitted: bigs(g.S0.Values), FittedErr: bigs(g.S0.Errors), Exact: bigs(g.S0Exact)},
 		Notes: notes,
 	}, nil
+}
+
+// Orders of the alpha_G and alpha_K series: those the alpha_S series
+// supports (energy.SoftAlphaSOrder): around q = 2 alpha_K to
+// MaxEnergyOrderEps and alpha_G one further; around q = infinity, where
+// alpha_S starts at x^2, alpha_K to MaxEnergyOrderX - 2 and alpha_G to
+// MaxEnergyOrderX - 1.
+func softMaxOrder(kind string, end conformal.End) int {
+	g := 0
+	if kind == energy.QuantityAlphaG {
+		g = 1
+	}
+	if end == conformal.AroundTwo {
+		return MaxEnergyOrderEps + g
+	}
+	return MaxEnergyOrderX - 2 + g
+}
+
+// softSeries is Series for alpha_G and alpha_K: the alpha_S ground series
+// of the order they need times the exact factor series.
+func (p energyProvider) softSeries(r Request) (*SeriesResult, error) {
+	hi := softMaxOrder(p.kind, r.End)
+	if r.Order < 0 || r.Order > hi {
+		return nil, fmt.Errorf("%w: order %d: the %s series around q = %s takes orders 0..%d (those the alpha_S series supports: alpha_S to order %d)",
+			ErrInput, r.Order, p.q.Name, r.End, hi, map[bool]int{true: MaxEnergyOrderEps, false: MaxEnergyOrderX}[r.End == conformal.AroundTwo])
+	}
+	variable := energy.VarEps
+	if r.End == conformal.AroundInf {
+		variable = energy.VarX
+	}
+	so, err := energy.SoftAlphaSOrder(p.kind, variable, r.Order)
+	if err != nil {
+		return nil, inputErr(err)
+	}
+	g, err := ground(r.End, so, r.Progress)
+	if err != nil {
+		return nil, err
+	}
+	c, err := energy.SoftSeries(p.kind, variable, g.AlphaS)
+	if err != nil {
+		return nil, inputErr(err)
+	}
+	if c.Len() < r.Order+1 {
+		return nil, fmt.Errorf("%s around q = %s: %d coefficients from the alpha_S series of order %d, %d needed", p.q.Name, r.End, c.Len(), so, r.Order+1)
+	}
+	c = energy.Coeffs{Values: c.Values[:r.Order+1], Errors: c.Errors[:r.Order+1]}
+	notes, fit := groundNotes(r.End, g)
+	factor := map[string]string{
+		energy.QuantityAlphaK: "F_K = 6 q^2 alpha_0, alpha_0 = 2 pi q/((q-1)(q-2) tan(pi/q))",
+		energy.QuantityAlphaG: "F_G = 6 q^2 alpha_0/(-q k_A'(2)), k_A'(2) in closed form",
+	}[p.kind]
+	method := fmt.Sprintf("alpha_S series to order %d times the exact series of %s (conformal.SoftFactorSeries; errors: the alpha_S errors propagated, sum_j |f_j| err_(k-j)); alpha_S from %s", so, factor, fit)
+	if r.End == conformal.AroundTwo {
+		notes = append(notes, "F_K and F_G are analytic at q = 2 in eps: alpha_0(2) = pi^2 is finite (the zero of 1/tan(pi/q) cancels the pole of 1/(q-2)) and k_A'(2) has a simple pole, so F_K(2) = 24 pi^2 (alpha_K(2) = pi) and F_G = 6 pi^2 eps + O(eps^2) (alpha_G(2) = 0, its constant term an exact zero).")
+	} else {
+		notes = append(notes, "around q = infinity the series of x^2 F_K -> 12 and x F_G -> 8 multiply alpha_S/x^2 -> 1/4: alpha_K -> 3, alpha_G -> 2/q (MS 2016 sec. 4).")
+	}
+	coeffs := &conformal.Coefficients{Quantity: p.q.Name, End: r.End, N: -1, Values: bigs(c.Values), Errors: bigs(c.Errors), Method: method, Prec: 53}
+	return &SeriesResult{
+		Parts: []*conformal.Coefficients{coeffs},
+		Check: &SeriesCheck{Name: S0, Fitted: bigs(g.S0.Values), FittedErr: bigs(g.S0.Errors), Exact: bigs(g.S0Exact)},
+		Notes: notes,
+	}, nil
+}
+
+// groundNotes are the notes of a ground series and the method of its fits.
+func groundNotes(end conformal.End, g *energy.GroundSeries) ([]string, string) {
+	var notes []string
+	if end == conformal.AroundTwo {
+		notes = append(notes, "Perturbation theory of the SD equations in delta = q - 2 at finite beta (per-frequency algebraic solves, sources by pointwise series arithmetic), converted to eps by delta = 2 eps/(1-eps) on every grid, Richardson-extrapolated in the grid spacing.")
+	} else {
+		notes = append(notes, "G = (1/2) sgn(tau)[1 + g_1/q + ...]: g_1 the Liouville solution, each g_k from Liouville's fluctuation operator with local and non-local sources, at finite beta, Richardson-extrapolated in the grid spacing.")
+	}
+	method := fmt.Sprintf("low-temperature fits of log Z_k = -beta E_0k + S_0k + 2 pi^2 alpha_Sk/beta + corrections over %d temperatures, beta = %.4g..%.4g; errors = spread over fit windows and models + propagated data errors", len(g.Ladder), g.BetaMin, g.BetaMax)
+	notes = append(notes, method+".", "log Z is evaluated from the converged G and Sigma at every order (the stationarity of log Z is not used).")
+	return notes, method
 }
 
 // resumOrders clamps the requested order to what each end supports.
@@ -172,6 +256,9 @@ func (p energyProvider) Resum(qp conformal.QPoint, r Request) (*Resummation, err
 	if err := p.check(r); err != nil {
 		return nil, err
 	}
+	if p.soft() && qp.Inf {
+		return nil, fmt.Errorf("%w: q = inf: %s is resummed at finite q; at q = infinity its 1/q series (qbridge series %s --around inf) gives the limit (alpha_K -> 3, alpha_G -> 2/q)", ErrInput, p.q.Name, p.q.Name)
+	}
 	q, err := finiteQ(qp, p.q.Name)
 	if err != nil {
 		return nil, err
@@ -189,27 +276,26 @@ func (p energyProvider) Resum(qp conformal.QPoint, r Request) (*Resummation, err
 	if err != nil {
 		return nil, inputErr(err)
 	}
-	d, err := energy.DirectGround(q, r.Progress)
+	ref, err := p.reference(q, r.Progress)
 	if err != nil {
 		return nil, err
 	}
 	// The orders actually used: coefficients the fits do not determine are
 	// dropped (energy.ResumGround). At infinity the resummed series is that
-	// of q^2 F, whose x^k is F's x^(k+2).
-	usedEps, usedX := res.AtTwo.Len()-1, res.AtInf.Len()+1
-	dv, de := d.E0, d.E0Err
-	if p.kind == energy.QuantityAlphaS {
-		dv, de = d.AlphaS, d.AlphaSErr
-	}
+	// of q^p F, whose x^k is F's x^(k+p).
+	usedEps, usedX := res.AtTwo.Len()-1, res.AtInf.Len()-1+res.Power
+	fn := normalisedName(res.Power, p.q.Name)
 	out := &Resummation{
 		Name: p.q.Name, Q: qp, OrderEps: usedEps, OrderX: usedX,
-		Reference: &Reference{Value: big.NewFloat(dv), Err: big.NewFloat(de), Kind: "direct",
-			Method: "direct Schwinger-Dyson solver: ladder of solves in beta and joint low-temperature fits of log Z and E"},
+		Reference: ref,
 		Published: energyPublished(p.kind, q),
 		Notes: []string{
-			"The two-point Pade uses q^2 " + p.q.Name + " as a function of x = 1/q, finite at both ends: its series at x = 0 and at x = 1/2 (from eps = 1 - 2x).",
+			"The two-point Pade uses " + fn + " as a function of x = 1/q, finite at both ends: its series at x = 0 and at x = 1/2 (from eps = 1 - 2x).",
 			"Errors add the spread of the approximants and the shift under the coefficient error bars.",
 		},
+	}
+	if p.soft() {
+		out.Notes = append(out.Notes, "The series of "+p.q.Name+" are those of alpha_S (the orders its fits determine) times the exact factor series; see qbridge series "+p.q.Name+".")
 	}
 	if usedEps != r.Order || usedX != r.Order {
 		out.Notes = append(out.Notes, fmt.Sprintf("order %d asked; used %d around q = 2 and %d around q = infinity (supported here: %d..%d and %d..%d; orders whose fitted coefficient is not determined, error >= value, are dropped)",
@@ -229,11 +315,79 @@ func (p energyProvider) Resum(qp conformal.QPoint, r Request) (*Resummation, err
 	return out, nil
 }
 
+// normalisedName is the function the two-point Pade approximates: q^p F.
+func normalisedName(p int, name string) string {
+	switch p {
+	case 0:
+		return name
+	case 1:
+		return "q " + name
+	}
+	return fmt.Sprintf("q^%d %s", p, name)
+}
+
+// directMethod describes the direct reference of E_0 and alpha_S.
+const directMethod = "direct Schwinger-Dyson solver: ladder of solves in beta and joint low-temperature fits of log Z and E"
+
+// reference is the value a resummation is compared with: the direct
+// solver's ground ladder (energy.DirectGround) for E_0 and alpha_S, its
+// zero-temperature route (energy.DirectSoftMode) for alpha_G and alpha_K,
+// whose q = 2 values are the exact limits alpha_K = pi, alpha_G = 0.
+func (p energyProvider) reference(q float64, progress func(float64, string)) (*Reference, error) {
+	if !p.soft() {
+		d, err := energy.DirectGround(q, progress)
+		if err != nil {
+			return nil, err
+		}
+		dv, de := d.E0, d.E0Err
+		if p.kind == energy.QuantityAlphaS {
+			dv, de = d.AlphaS, d.AlphaSErr
+		}
+		return &Reference{Value: big.NewFloat(dv), Err: big.NewFloat(de), Kind: "direct", Method: directMethod}, nil
+	}
+	if q == 2 {
+		return softLimitAtTwo(p.kind), nil
+	}
+	d, err := energy.DirectSoftMode(q, progress)
+	if err != nil {
+		return nil, inputErr(err)
+	}
+	v, e, m := d.AlphaG, d.AlphaGErr, d.MethodG
+	if p.kind == energy.QuantityAlphaK {
+		v, e, m = d.AlphaK, d.AlphaKErr, d.MethodK
+	}
+	return &Reference{Value: big.NewFloat(v), Err: big.NewFloat(e), Kind: "direct", Method: "direct zero-temperature Schwinger-Dyson route: " + m}, nil
+}
+
+// softLimitAtTwo is alpha_G or alpha_K at q = 2: alpha_S = 1/(24 pi)
+// (the semicircle, PHYSICS.md sec. 5) times the limits F_K = 24 pi^2 and
+// F_G = 0 of the exact factors (conformal.SoftFactorSeries): alpha_K = pi,
+// alpha_G = 0 exactly (the semicircle's G(tau) has no 1/tau^2 term).
+func softLimitAtTwo(kind string) *Reference {
+	if kind == energy.QuantityAlphaK {
+		pi := scalar.Pi(128)
+		return &Reference{Value: pi, Err: new(big.Float).SetMantExp(pi, -126), Kind: "exact",
+			Method: "exact at q = 2: alpha_K = 24 pi^2 alpha_S = pi with alpha_S = 1/(24 pi) (semicircle); error: rounding at 128 bits"}
+	}
+	return &Reference{Value: new(big.Float), Kind: "exact",
+		Method: "exact at q = 2: alpha_G = 0 (F_G = 6 pi^2 eps + O(eps^2); the semicircle's G(tau) has no 1/tau^2 term); an exact zero, no error to estimate"}
+}
+
 // energyPublished returns the published q = 4 values (PHYSICS sec. 8):
 // E_0 = -0.0406 J = -0.05746 script-J (Maldacena-Stanford arXiv:1604.07818;
 // Garcia-Garcia-Verbaarschot arXiv:1610.03816; quoted from memory),
-// alpha_S ~ 0.007 (MS 2016).
+// alpha_S ~ 0.007 (MS 2016), alpha_K ~ 2.852 (MS 2016, from memory); for
+// alpha_G and alpha_K elsewhere the large-q limits 2/q and 3 (MS 2016
+// sec. 4), marked as limiting formulas.
 func energyPublished(kind string, q float64) *conformal.Published {
+	switch {
+	case kind == energy.QuantityAlphaK && q == 4:
+		return &conformal.Published{Value: big.NewFloat(2.852), Digits: 4, Source: "MS 2016 arXiv:1604.07818 (from memory)"}
+	case kind == energy.QuantityAlphaK:
+		return &conformal.Published{Value: big.NewFloat(3), Source: "large-q limit alpha_K = 3 (MS 2016 arXiv:1604.07818 sec. 4)", Limit: true}
+	case kind == energy.QuantityAlphaG:
+		return &conformal.Published{Value: big.NewFloat(2 / q), Source: "large-q limit alpha_G = 2/q (MS 2016 arXiv:1604.07818 sec. 4)", Limit: true}
+	}
 	if q != 4 {
 		return nil
 	}

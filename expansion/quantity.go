@@ -19,6 +19,12 @@ const (
 	E0 = "E_0"
 	// AlphaS is the Schwarzian coefficient.
 	AlphaS = "alpha_S"
+	// AlphaG is the h = 2 correction to the zero-temperature two-point
+	// function, G = G_c [1 - alpha_G/(script-J |tau|) + ...].
+	AlphaG = "alpha_G"
+	// AlphaK is the shift of the h = 2 kernel eigenvalue at finite
+	// temperature, k(2, n) = 1 - alpha_K |n|/(beta script-J) + ...
+	AlphaK = "alpha_K"
 	// LogZ is log Z per Majorana fermion at one inverse temperature.
 	LogZ = "logZ"
 )
@@ -30,8 +36,11 @@ type Quantity struct {
 	// Aliases are further accepted spellings (matched without case and
 	// without underscores).
 	Aliases []string
-	// Unit is the unit the values are printed in.
+	// Unit is the unit the values are printed in (script-J units; UnitIn
+	// gives it in other units).
 	Unit string
+	// Scaling says how the values convert between script-J and J units.
+	Scaling Scaling
 	// Summary is a one-line description for help texts.
 	Summary string
 	// Indexed quantities take a dimension index n (h_n).

@@ -19,6 +19,8 @@ const (
 	TransformPow = "R^x"
 	// TransformSquare: the quantity is x^2 R(x) (E_0, alpha_S from q^2 F).
 	TransformSquare = "x^2 R"
+	// TransformLinear: the quantity is x R(x) (alpha_G from q alpha_G).
+	TransformLinear = "x R"
 )
 
 // Rational is one two-point Pade approximant written out: the quantity at
@@ -106,8 +108,10 @@ func (a *Approximant) Rational() (*Rational, error) {
 	}
 	tr := TransformNone
 	switch {
-	case a.sets != nil:
+	case a.sets != nil && a.pow == 2:
 		tr = TransformSquare
+	case a.sets != nil && a.pow == 1:
+		tr = TransformLinear
 	case a.kind == conformal.QuantityB:
 		tr = TransformPow
 	}
@@ -134,6 +138,8 @@ func (r *Rational) Eval64(q float64) float64 {
 		return math.Pow(v, x)
 	case TransformSquare:
 		return x * x * v
+	case TransformLinear:
+		return x * v
 	}
 	return v
 }
@@ -173,23 +179,47 @@ func (a *Approximant) CheckRational(r *Rational, digits int, progress func(float
 		}
 	} else {
 		c.Reference = "exact at q = 2 and infinity, direct solver at q = 3, 4, 6"
-		exact2 := -2 / (3 * math.Pi)
-		if a.kind == energy.QuantityAlphaS {
+		// q = 2: E_0 = -2/(3 pi), alpha_S = 1/(24 pi) (the semicircle,
+		// PHYSICS sec. 5), alpha_K = 24 pi^2 alpha_S = pi, alpha_G = 0;
+		// q = infinity: 0, except alpha_K -> 3 (MS 2016 sec. 4).
+		exact2, exactInf := -2/(3*math.Pi), 0.0
+		switch a.kind {
+		case energy.QuantityAlphaS:
 			exact2 = 1 / (24 * math.Pi)
+		case energy.QuantityAlphaK:
+			exact2, exactInf = math.Pi, 3
+		case energy.QuantityAlphaG:
+			exact2 = 0
+		}
+		soft := a.kind == energy.QuantityAlphaG || a.kind == energy.QuantityAlphaK
+		if soft {
+			c.Reference = "exact at q = 2 and infinity, direct zero-temperature route at q = 3, 4, 6"
 		}
 		two := conformal.QPoint{Q: big.NewFloat(2)}
-		pts, refs, referr = append(pts, two, conformal.QPoint{Inf: true}), append(refs, exact2, 0), append(referr, 0, 0)
+		pts, refs, referr = append(pts, two, conformal.QPoint{Inf: true}), append(refs, exact2, exactInf), append(referr, 0, 0)
 		for i, q := range []float64{3, 4, 6} {
 			if progress != nil {
 				progress(float64(i)/3, fmt.Sprintf("direct solver at q = %g", q))
 			}
-			d, err := energy.DirectGround(q, nil)
-			if err != nil {
-				return fmt.Errorf("checking the approximant: %w", err)
-			}
-			v, e := d.E0, d.E0Err
-			if a.kind == energy.QuantityAlphaS {
-				v, e = d.AlphaS, d.AlphaSErr
+			var v, e float64
+			if soft {
+				d, err := energy.DirectSoftMode(q, nil)
+				if err != nil {
+					return fmt.Errorf("checking the approximant: %w", err)
+				}
+				v, e = d.AlphaG, d.AlphaGErr
+				if a.kind == energy.QuantityAlphaK {
+					v, e = d.AlphaK, d.AlphaKErr
+				}
+			} else {
+				d, err := energy.DirectGround(q, nil)
+				if err != nil {
+					return fmt.Errorf("checking the approximant: %w", err)
+				}
+				v, e = d.E0, d.E0Err
+				if a.kind == energy.QuantityAlphaS {
+					v, e = d.AlphaS, d.AlphaSErr
+				}
 			}
 			pts, refs, referr = append(pts, conformal.QPoint{Q: big.NewFloat(q)}), append(refs, v), append(referr, e)
 		}

@@ -18,8 +18,9 @@ const (
 	SourceExact = "exact"
 	// SourceResummed is the two-point Pade of the series at both ends.
 	SourceResummed = "resummed"
-	// SourceDirect is the direct Schwinger-Dyson solver's ground ladder and
-	// low-temperature fits (E_0, S_0 fitted, alpha_S).
+	// SourceDirect is the direct Schwinger-Dyson solver: its ground ladder
+	// and low-temperature fits (E_0, S_0 fitted, alpha_S) and its
+	// zero-temperature route (alpha_G, alpha_K; energy.DirectSoftMode).
 	SourceDirect = "direct"
 	// SourceAll asks for every source a quantity has, side by side.
 	SourceAll = "all"
@@ -106,7 +107,7 @@ type TableResult struct {
 // sourcesFor returns the sources a quantity shows for the requested one,
 // or an ErrInput error when it has none of them.
 func sourcesFor(q Quantity, name, src string) ([]string, error) {
-	direct := q.Name == E0 || q.Name == S0 || q.Name == AlphaS
+	direct := q.Name == E0 || q.Name == S0 || q.Name == AlphaS || q.Name == AlphaG || q.Name == AlphaK
 	switch src {
 	case "":
 		if q.Exact {
@@ -122,7 +123,7 @@ func sourcesFor(q Quantity, name, src string) ([]string, error) {
 		return []string{SourceResummed}, nil
 	case SourceDirect:
 		if !direct {
-			return nil, fmt.Errorf("%w: the direct solver gives E_0, S_0 and alpha_S, not %s: use --method exact or resummed", ErrInput, name)
+			return nil, fmt.Errorf("%w: the direct solver gives E_0, S_0, alpha_S, alpha_G and alpha_K, not %s: use --method exact or resummed", ErrInput, name)
 		}
 		return []string{SourceDirect}, nil
 	case SourceAll:
@@ -292,6 +293,10 @@ func columnNote(c *tableColumn) string {
 			}
 			s += " and the change from the two-point Pade one order lower)"
 		case SourceDirect:
+			if c.Name == AlphaG || c.Name == AlphaK {
+				s += "direct: zero-temperature Schwinger-Dyson route (alpha_G from the h = 2 correction of the T = 0 solution, alpha_K = -q k_A'(2) alpha_G); needs q > 2"
+				break
+			}
 			s += "direct: Schwinger-Dyson solver, ladder of solves in beta and joint low-temperature fits of log Z and E"
 			if c.Name == S0 {
 				s += " (S_0 fitted)"
@@ -342,6 +347,9 @@ func (c *tableColumn) cell(src string, q conformal.QPoint, digits int) TableCell
 		if q.Inf {
 			return TableCell{Missing: "the direct solver needs a finite q"}
 		}
+		if c.Name == AlphaG || c.Name == AlphaK {
+			return softCell(c.Name, qFloat(q))
+		}
 		d, err := energy.DirectGround(qFloat(q), nil)
 		if err != nil {
 			return TableCell{Missing: "failed: " + err.Error(), Failed: true}
@@ -365,4 +373,40 @@ func (c *tableColumn) cell(src string, q conformal.QPoint, digits int) TableCell
 		return cell
 	}
 	return TableCell{Missing: "unknown source " + src, Failed: true}
+}
+
+// softCell is the direct value of alpha_G or alpha_K at q: the
+// zero-temperature route (energy.DirectSoftMode, the value resum and report
+// use), or at q = 2 the exact limit alpha_K = pi, alpha_G = 0.
+func softCell(name string, q float64) TableCell {
+	kind := energy.QuantityAlphaG
+	if name == AlphaK {
+		kind = energy.QuantityAlphaK
+	}
+	if q == 2 {
+		ref := softLimitAtTwo(kind)
+		cell := TableCell{Value: ref.Value, Err: ref.Err, Method: ref.Method}
+		if ref.Err == nil {
+			cell.ErrNote = "an exact zero"
+		}
+		return cell
+	}
+	d, err := energy.DirectSoftMode(q, nil)
+	if err != nil {
+		return TableCell{Missing: "failed: " + err.Error(), Failed: true}
+	}
+	v, e, m := d.AlphaG, d.AlphaGErr, d.MethodG
+	if kind == energy.QuantityAlphaK {
+		v, e, m = d.AlphaK, d.AlphaKErr, d.MethodK
+	}
+	if !finite(v) {
+		return TableCell{Missing: "failed: the zero-temperature route returned a non-finite value", Failed: true}
+	}
+	cell := TableCell{Value: big.NewFloat(v), Method: "direct zero-temperature Schwinger-Dyson route: " + m}
+	if e > 0 && finite(e) {
+		cell.Err = big.NewFloat(e)
+	} else {
+		cell.ErrNote = "the route gave no spread"
+	}
+	return cell
 }

@@ -82,6 +82,15 @@ func TestBadInputTable(t *testing.T) {
 		{[]string{"solve", "--out", "g.txt"}, "must end in .csv or .json"},
 		{[]string{"ground", "--steps", "1e3"}, `--steps "1e3": expected an integer`},
 		{[]string{"ground", "--q", "1"}, "q"},
+		{[]string{"--units", "eV", "exact", "b"}, `--units "eV": expected script-J (default) or J`},
+		{[]string{"series", "e0", "--around", "inf", "--units", "J"}, "essential singularity"},
+		{[]string{"series", "alpha_G", "--around", "inf", "--units", "J"}, "essential singularity"},
+		{[]string{"series", "logz", "--beta", "3", "--units", "J"}, "varies with q"},
+		{[]string{"check", "E_0 = 0", "--units", "J"}, "check compares claims with the series in script-J units"},
+		{[]string{"resum", "alpha_K", "--emit", "python", "--units", "J"}, "--emit writes alpha_K in script-J units"},
+		{[]string{"series", "alpha_K", "--around", "inf", "--order", "15"}, "takes orders 0..14"},
+		{[]string{"series", "alpha_G", "--around", "2", "--order", "42"}, "takes orders 0..41"},
+		{[]string{"table", "alpha_G", "--q", "4", "--method", "exact"}, "has no exact value"},
 	}
 	if len(cases) < 40 {
 		t.Fatalf("only %d cases", len(cases))

@@ -49,7 +49,7 @@ The language: numbers (5, 0.25, 5/6 is read as the rational), + - * / ^ and
 parentheses, multiplication always written with *; the constant pi and
 zeta(n) (integer n >= 2); sqrt, exp, log, sin, cos, tan, Gamma, psi; the
 variables q, eps = 1 - 2/q and x = 1/q (each usable around either end); the
-quantities h_1, h_2, ..., b, S_0, E_0, alpha_S (and their aliases); and the
+quantities h_1, h_2, ..., b, S_0, E_0, alpha_S, alpha_G, alpha_K (and their aliases); and the
 order term O(eps^k), O(x^k) or O(1/q^k), which names the end and the order
 the claim is made to. Without an O() term the claim's variable names the end
 (with none, both ends are checked) and --order (default 6) the order.
@@ -60,7 +60,8 @@ S_0; the two-point Pade of E_0 and alpha_S), O() terms left out.
 --file FILE checks one claim per line (# starts a comment) and prints one row
 per claim.
 Exit status: 0 the claim holds, 1 it fails (or could not be computed), 2 a
-malformed claim or bad flags.`,
+malformed claim or bad flags. Claims are in script-J units (--units J is
+refused).`,
 	Example: `  qbridge check 'h_1 = 4 - (5/6)*eps^2 + O(eps^4)'
   qbridge check 'alpha_S = 1/(4*q^2) + O(1/q^3)' --format json
   qbridge check 'h_1 = 4 - (5/6)*eps^2 + O(eps^4)' --q 3,4
@@ -153,6 +154,9 @@ func readClaims(path string) ([]claimLine, error) {
 }
 
 func runCheck(cmd *cobra.Command, args []string) error {
+	if inJ() {
+		return usageErr("check compares claims with the series in script-J units (in J units the energies have no series in 1/q: sqrt(q/2^(q-1)) is essential at q = inf); drop --units J and write the factor into the claim if you need it")
+	}
 	s, err := parseCheckFlags(cmd)
 	if err != nil {
 		return err
@@ -278,7 +282,7 @@ func checkNotes(s *checkSettings, prec string) []string {
 	}
 	return []string{
 		"agrees: |LHS - RHS| <= max(3 error, tol), tol = " + tol + " (--tol)",
-		"errors: the coefficient errors of the quantities (two working precisions for h_n, b, S_0; the low-temperature fits for E_0, alpha_S), propagated coefficient-wise to first order through every operation, plus the rounding at " + prec + "; numbers, pi, zeta(n), q, eps and x are exact",
+		"errors: the coefficient errors of the quantities (two working precisions for h_n, b, S_0; the low-temperature fits for E_0, alpha_S and, through exact factors, alpha_G, alpha_K), propagated coefficient-wise to first order through every operation, plus the rounding at " + prec + "; numbers, pi, zeta(n), q, eps and x are exact",
 		"sigma = |LHS - RHS| / error; an error of \"exact\" marks an exact zero that no inexact input or rounding reaches",
 	}
 }

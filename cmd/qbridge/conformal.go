@@ -115,7 +115,7 @@ func exactOutput(quantity string, q conformal.QPoint, vals []*conformal.Value) *
 	if ns != nil {
 		js["n"] = ns
 	}
-	return &Output{JSON: js, Tables: []Table{tab}, Notes: []string{"method: " + vals[0].Method, "units: script-J = 1"}}
+	return &Output{JSON: js, Tables: []Table{tab}, Notes: []string{"method: " + vals[0].Method, unitsNote()}}
 }
 
 func init() {

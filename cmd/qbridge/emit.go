@@ -49,6 +49,9 @@ func runEmit(cmd *cobra.Command, args []string) error {
 		return usageErr("--emit writes one function: name one dimension (h_3, or --n 3)")
 	}
 	name := p.Quantity().Named(ns[0])
+	if inJ() && p.Quantity().Scaling != expansion.ScaleNone {
+		return usageErr("--emit writes %s in script-J units (the approximated %s is a rational function of 1/q only there; in J units it gains the factor sqrt(q/2^(q-1))^(+-1), essential at q = inf): drop --units J and convert in your code", name, name)
+	}
 	pr := newProgress(cmd, "emit")
 	defer pr.Done()
 	a, err := expansion.NewApproximant(name, resumFlags.order, workDigits(), newCache(cmd, false))
@@ -104,6 +107,7 @@ func emitHeader(r *expansion.Rational, invocation string) []string {
 		expansion.TransformNone:   r.Name + "(q) = P(x)/Q(x)",
 		expansion.TransformPow:    r.Name + "(q) = (P(x)/Q(x))^x, P/Q approximating b^q",
 		expansion.TransformSquare: r.Name + "(q) = x^2 P(x)/Q(x), P/Q approximating q^2 " + r.Name,
+		expansion.TransformLinear: r.Name + "(q) = x P(x)/Q(x), P/Q approximating q " + r.Name,
 	}[r.Transform]
 	lines := []string{
 		fmt.Sprintf("%s as a function of the interaction order q (units script-J = 1).", r.Name),
@@ -173,6 +177,8 @@ func emitCode(lang string, r *expansion.Rational, invocation string) (string, er
 			b.WriteString("\treturn math.Pow(r, x), nil\n")
 		case expansion.TransformSquare:
 			b.WriteString("\treturn x * x * r, nil\n")
+		case expansion.TransformLinear:
+			b.WriteString("\treturn x * r, nil\n")
 		default:
 			b.WriteString("\treturn r, nil\n")
 		}
@@ -196,6 +202,8 @@ func emitCode(lang string, r *expansion.Rational, invocation string) (string, er
 			b.WriteString("    return pow(r, x);\n")
 		case expansion.TransformSquare:
 			b.WriteString("    return x * x * r;\n")
+		case expansion.TransformLinear:
+			b.WriteString("    return x * r;\n")
 		default:
 			b.WriteString("    return r;\n")
 		}
@@ -214,6 +222,8 @@ func emitCode(lang string, r *expansion.Rational, invocation string) (string, er
 			b.WriteString("    return math.pow(r, x)\n")
 		case expansion.TransformSquare:
 			b.WriteString("    return x * x * r\n")
+		case expansion.TransformLinear:
+			b.WriteString("    return x * r\n")
 		default:
 			b.WriteString("    return r\n")
 		}

@@ -8,6 +8,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"qbridge/expansion"
 	"qbridge/expansion/energy"
 	"qbridge/numeric"
 )
@@ -28,7 +29,11 @@ log Z = -beta E_0 + S_0 + 2 pi^2 alpha_S T + sum_k c_k T^{p_k}
 over several windows and orders. Values are medians of the accepted fits,
 errors half their spread plus the typical statistical error. The exact S_0
 (Kitaev's integral) is printed beside the fitted one as a check.
-Units script-J = 1.`,
+Units script-J = 1; with --units J, E_0 is printed in units of J, alpha_S
+as the coefficient of 1/J, and --beta-max, --beta-min are beta J (the
+default ladder is the same in both units: its values are those of resum,
+report and table --method direct). Values never carry more than 15 digits
+(float64 solves).`,
 	Args: cobra.NoArgs,
 	RunE: runGround,
 }
@@ -55,9 +60,19 @@ func runGround(cmd *cobra.Command, args []string) error {
 		return usageErr("--steps must be between 8 and 200 (got %d)", fl.Steps)
 	}
 	pr := newProgress(cmd, "ground")
-	lp := numeric.GroundLadder(fl.Q, fl.BetaMax, pr.Update)
+	// --beta-max, --beta-min in J units are beta J: beta script-J =
+	// beta J sqrt(q/2^(q-1)) (expansion.Units.BetaScriptJ). The default
+	// ladder is GroundLadder(q, 0) in either units.
+	bmax := 0.0
+	if cmd.Flags().Changed("beta-max") {
+		bmax = opts.units.BetaScriptJ(fl.BetaMax, fl.Q)
+		if !(bmax > 0) || bmax > 1e5 {
+			return usageErr("--beta-max %g is beta*script-J = %g, outside the supported (0, 1e5]", fl.BetaMax, bmax)
+		}
+	}
+	lp := numeric.GroundLadder(fl.Q, bmax, pr.Update)
 	if fl.BetaMin != 0 {
-		lp.BetaMin = fl.BetaMin
+		lp.BetaMin = opts.units.BetaScriptJ(fl.BetaMin, fl.Q)
 	}
 	if !(lp.BetaMin > 0) || lp.BetaMin >= lp.BetaMax {
 		return usageErr("--beta-min must be positive and below --beta-max (got %g)", fl.BetaMin)
@@ -75,7 +90,14 @@ func runGround(cmd *cobra.Command, args []string) error {
 }
 
 func groundOutput(g *numeric.Ground) *Output {
-	d := opts.Digits
+	d := min(opts.Digits, 15) // float64 solves
+	// Units (expansion.Units): E_0 times fe, alpha_S times fa, beta times
+	// fb = 1/r (beta J = beta script-J / r), a fit coefficient of T^p times
+	// r^(-p) (T/J = (T/script-J) r); all 1 in script-J units.
+	fe, _ := opts.units.Factor(expansion.ScaleEnergy, g.Q)
+	fa, _ := opts.units.Factor(expansion.ScaleInverseEnergy, g.Q)
+	fb := fa
+	bname := "beta*" + opts.units.String()
 	type fitJSON struct {
 		BetaMin   string    `json:"beta_min"`
 		BetaMax   string    `json:"beta_max"`
@@ -93,51 +115,54 @@ func groundOutput(g *numeric.Ground) *Output {
 	for _, f := range g.Fits {
 		c := make([]string, len(f.Coef))
 		for i, v := range f.Coef {
+			if i < len(f.Exponents) {
+				v *= math.Pow(fe, -f.Exponents[i])
+			}
 			c[i] = fmtFloat(v, 12)
 		}
-		fits = append(fits, fitJSON{fmtFloat(f.BetaMin, 6), fmtFloat(f.BetaMax, 6), f.Exponents, fmtFloat(f.E0, 15), fmtFloat(f.S0, 12), fmtFloat(f.AlphaS, 10), fmtErr64(f.AlphaSErr), c, fmtErr64(f.Chi2), f.Accepted})
+		fits = append(fits, fitJSON{fmtFloat(f.BetaMin*fb, 6), fmtFloat(f.BetaMax*fb, 6), f.Exponents, fmtFloat(f.E0*fe, 15), fmtFloat(f.S0, 12), fmtFloat(f.AlphaS*fa, 10), fmtErr64(f.AlphaSErr * fa), c, fmtErr64(f.Chi2), f.Accepted})
 		acc := "no"
 		if f.Accepted {
 			acc = "yes"
 		}
-		fitRows = append(fitRows, []string{fmtFloat(f.BetaMin, 5) + ".." + fmtFloat(f.BetaMax, 5), strconv.Itoa(len(f.Exponents) - 1), fmtFloat(f.E0, 15), fmtFloat(f.S0, 12), fmtFloat(f.AlphaS, 10), fmtErr64(f.Chi2), acc})
+		fitRows = append(fitRows, []string{fmtFloat(f.BetaMin*fb, 5) + ".." + fmtFloat(f.BetaMax*fb, 5), strconv.Itoa(len(f.Exponents) - 1), fmtFloat(f.E0*fe, 15), fmtFloat(f.S0, 12), fmtFloat(f.AlphaS*fa, 10), fmtErr64(f.Chi2), acc})
 	}
 	betas := make([]string, len(g.Ladder))
 	for i, s := range g.Ladder {
-		betas[i] = fmtFloat(s.Beta, 8)
+		betas[i] = fmtFloat(s.Beta*fb, 8)
 	}
 	js := map[string]any{
 		"q":  fmtG(g.Q),
-		"E0": fmtFloat(g.E0, d), "E0_err": fmtErr64(g.E0Err),
+		"E0": fmtFloat(g.E0*fe, d), "E0_err": fmtErr64(g.E0Err * fe),
 		"S0": fmtFloat(g.S0, d), "S0_err": fmtErr64(g.S0Err),
-		"alphaS": fmtFloat(g.AlphaS, d), "alphaS_err": fmtErr64(g.AlphaSErr),
+		"alphaS": fmtFloat(g.AlphaS*fa, d), "alphaS_err": fmtErr64(g.AlphaSErr * fa),
 		"S0_exact": fmtFloat(g.S0Exact, d),
 		"h1":       fmtFloat(g.H1, 12),
 		"betas":    betas,
 		"fits":     fits,
-		"units":    "script-J = 1",
+		"units":    unitsStatement(),
 	}
 	return &Output{
 		JSON: js,
 		Tables: []Table{
 			{
-				Title:  fmt.Sprintf("SYK q = %s, low-temperature extraction", fmtG(g.Q)),
+				Title:  fmt.Sprintf("SYK q = %s, low-temperature extraction (%s)", fmtG(g.Q), unitsStatement()),
 				Header: []string{"quantity", "value", "error"},
 				Rows: [][]string{
-					{"E_0", fmtFloat(g.E0, d), fmtErr64(g.E0Err)},
+					{"E_0", fmtFloat(g.E0*fe, d), fmtErr64(g.E0Err * fe)},
 					{"S_0 (fit)", fmtFloat(g.S0, d), fmtErr64(g.S0Err)},
 					{"S_0 (exact)", fmtFloat(g.S0Exact, d), ""},
-					{"alpha_S", fmtFloat(g.AlphaS, d), fmtErr64(g.AlphaSErr)},
+					{"alpha_S", fmtFloat(g.AlphaS*fa, d), fmtErr64(g.AlphaSErr * fa)},
 				},
 			},
 			{Title: "joint fits of log Z and E", Header: []string{"beta window", "corrections", "E_0", "S_0", "alpha_S", "chi2/dof", "accepted"}, Rows: fitRows},
 		},
 		Notes: []string{
-			fmt.Sprintf("ladder of %d solves, beta*script-J from %s to %s, each Richardson-extrapolated in the grid spacing", len(g.Ladder), fmtFloat(g.Ladder[0].Beta, 6), fmtFloat(g.Ladder[len(g.Ladder)-1].Beta, 6)),
+			fmt.Sprintf("ladder of %d solves, %s from %s to %s, each Richardson-extrapolated in the grid spacing", len(g.Ladder), bname, fmtFloat(g.Ladder[0].Beta*fb, 6), fmtFloat(g.Ladder[len(g.Ladder)-1].Beta*fb, 6)),
 			fmt.Sprintf("log Z = -beta E_0 + S_0 + 2 pi^2 alpha_S T + corrections T^p, p from {2, h_1 - 1, 3, h_1, 4, 2 h_1 - 2, 5, 6}, h_1 = %s", fmtFloat(g.H1, 8)),
 			"value = median of accepted fits, error = half their spread + median statistical error",
 			"S_0 (exact) = (1/2) log 2 - int_0^{1/q} pi (1/2 - x) tan(pi x) dx and h_1 (root of k_A(h) = 1) from the exact conformal data (package expansion/conformal)",
-			"units script-J = 1",
+			unitsNote() + "; JSON fit coefficients coef are those of T^p with T in the same units",
 		},
 	}
 }

@@ -321,7 +321,7 @@ func TestReportHappy(t *testing.T) {
 	g := loadHappyGolden(t)
 	m := runJSON(t, "report", "--q", "6", "--order", "8")
 	rows, ok := m["rows"].([]any)
-	if !ok || len(rows) != 10 {
+	if !ok || len(rows) != 12 {
 		t.Fatalf("rows: %v", m["rows"])
 	}
 	byName := map[string]map[string]any{}
@@ -374,7 +374,16 @@ func TestReportHappy(t *testing.T) {
 	within(t, "E_0(6) against -1/q^2", e0, -1/(q*q), 2/(q*q*q))
 	al := parseDecimal(t, byName["alpha_S"]["reference"])
 	within(t, "alpha_S(6) against 1/(4q^2)", al, 1/(4*q*q), 1/(q*q*q))
-	for _, name := range []string{"E_0", "alpha_S"} {
+	// alpha_K against its large-q limit 3 (MS 2016 sec. 4; PHYSICS.md
+	// sec. 7; the O(1/q) correction bounds the distance: loose), and the
+	// rows obey alpha_K = -q k_A'(2) alpha_G with the closed form
+	// k_A'(2) = (1/2)[q - 2q/(q-2) - q/(q-1) - 2 pi/sin(2 pi/q)] (MS 2016).
+	ak := parseDecimal(t, byName["alpha_K"]["reference"])
+	ag := parseDecimal(t, byName["alpha_G"]["reference"])
+	within(t, "alpha_K(6) against 3", ak, 3, 2/q)
+	ks := (q - 2*q/(q-2) - q/(q-1) - 2*math.Pi/math.Sin(2*math.Pi/q)) / 2
+	within(t, "alpha_K/alpha_G at q = 6 against -q k_A'(2)", ak/ag, -q*ks, 1e-12*q)
+	for _, name := range []string{"E_0", "alpha_S", "alpha_G", "alpha_K"} {
 		row := byName[name]
 		if row["reference_kind"] != "direct" {
 			t.Errorf("%s reference kind %v", name, row["reference_kind"])
@@ -534,13 +543,13 @@ func TestRenderingsHappy(t *testing.T) {
 	if err != nil {
 		t.Fatalf("csv: %v\n%s", err, out)
 	}
-	if len(recs) != 7 || recs[0][0] != "method" || recs[1][0] != "exact" || recs[6][0] != "two-point Pade" {
+	if len(recs) != 9 || recs[0][0] != "method" || recs[1][0] != "exact" || recs[8][0] != "two-point Pade" {
 		t.Fatalf("csv rows %v", recs)
 	}
 	ex, _ := strconv.ParseFloat(recs[1][1], 64)
 	within(t, "S_0(4) (csv)", ex, 0.2324, 5e-5)
-	tp, _ := strconv.ParseFloat(recs[6][1], 64)
-	tpErr, _ := strconv.ParseFloat(recs[6][2], 64)
+	tp, _ := strconv.ParseFloat(recs[8][1], 64)
+	tpErr, _ := strconv.ParseFloat(recs[8][2], 64)
 	within(t, "S_0(4) two-point (csv)", tp, ex, tpErr)
 
 	// LaTeX: series of S_0 around inf with closed forms typeset

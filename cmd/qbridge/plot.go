@@ -57,7 +57,11 @@ the difference from the reference on a log scale (--residual=false drops it).
   qbridge plot poles QUANTITY --around 2|inf          poles and zeros of the Pade approximants
 The file type follows --out (.svg or .png); the default size suits a journal
 column (3.4 in wide) and scales for slides. --data FILE.csv writes the numbers
-behind the figure (columns curve, x, y, y_error). Units script-J = 1.`,
+behind the figure (columns curve, x, y, y_error). Units script-J = 1; with
+--units J the figure of E_0, alpha_S, alpha_G, alpha_K against q is drawn in
+units J = 1 (every value times its factor at its q); the coefficient and
+pole figures of those quantities need script-J (no series in 1/q exists in
+J units).`,
 	Example: `  qbridge plot alpha_S --q 2..12:0.25 --out alpha.svg
   qbridge plot h_1 --q 2..40:*1.05 --out h1.png --data h1.csv
   qbridge plot coefficients s0 --around inf --out s0coef.svg
@@ -728,13 +732,79 @@ func runPlot(cmd *cobra.Command, args []string) error {
 		}
 	}
 	pr.Done()
+	if err := scaleFigure(fig, name); err != nil {
+		return err
+	}
+	notes = append(notes, unitsNote())
 	return fig.finish(cmd, format, w, h, notes)
+}
+
+// scaleFigure converts a figure against q from script-J units into the
+// units of --units: every value and error of both panels times the factor
+// of the quantity at its q (expansion.Units.Factor; the differences in the
+// lower panel scale by its modulus). Pure numbers are left alone.
+func scaleFigure(fig *figure, name string) error {
+	s := expansion.ScalingOf(name)
+	if !inJ() || s == expansion.ScaleNone {
+		return nil
+	}
+	scale := func(c *curve) error {
+		for i, q := range c.x {
+			f, err := opts.units.Factor(s, q)
+			if err != nil {
+				return libErr(err)
+			}
+			if c.panel == 1 {
+				f = math.Abs(f)
+			}
+			c.y[i] *= f
+			if c.yerr != nil {
+				c.yerr[i] *= math.Abs(f)
+			}
+			if c.big != nil && c.big[i] != nil {
+				c.big[i] = new(big.Float).Mul(c.big[i], big.NewFloat(f))
+			}
+		}
+		return nil
+	}
+	for i := range fig.curves {
+		if err := scale(&fig.curves[i]); err != nil {
+			return err
+		}
+	}
+	for i := range fig.marks {
+		if err := scale(&fig.marks[i]); err != nil {
+			return err
+		}
+	}
+	// The y range follows the scaled two-point curve, as in runPlot.
+	fig.yRange = nil
+	for _, c := range fig.curves {
+		if c.panel != 0 || c.name != expansion.MethodTwoPoint {
+			continue
+		}
+		lo, hi := math.Inf(1), math.Inf(-1)
+		for _, y := range c.y {
+			if finite(y) {
+				lo, hi = math.Min(lo, y), math.Max(hi, y)
+			}
+		}
+		if span := hi - lo; span > 0 {
+			fig.yRange = []float64{lo - 0.15*span, hi + 0.45*span}
+		}
+	}
+	return nil
 }
 
 // unitSuffix labels the y axis with the unit.
 func unitSuffix(name string) string {
-	if name == expansion.E0 {
-		return " (units of script-J)"
+	switch expansion.ScalingOf(name) {
+	case expansion.ScaleEnergy:
+		return " (units of " + opts.units.String() + ")"
+	case expansion.ScaleInverseEnergy:
+		if inJ() {
+			return " (coefficient of 1/J)"
+		}
 	}
 	return ""
 }
@@ -789,6 +859,9 @@ func plotSeriesArgs(args []string) (conformal.End, *conformal.Coefficients, *exp
 	end, err := parseEnd(plotFlags.around)
 	if err != nil {
 		return 0, nil, nil, err
+	}
+	if inJ() && expansion.ScalingOf(name) != expansion.ScaleNone {
+		return 0, nil, nil, usageErr("the coefficient and pole figures of %s are drawn for its series in script-J units (in J units there is no series in 1/q, and the approximated function changes): drop --units J", name)
 	}
 	c, a, err := plotSeries(name, end)
 	return end, c, a, err

@@ -105,7 +105,7 @@ func methodKey(m string) string {
 // finishOutput adds the units note and sets the JSON document: the one
 // result itself, or the list of them.
 func finishOutput(out *Output, docs []map[string]any) *Output {
-	out.Notes = append(out.Notes, "units: script-J = 1")
+	out.Notes = append(out.Notes, unitsNote())
 	if len(docs) == 1 {
 		out.JSON = docs[0]
 	} else {

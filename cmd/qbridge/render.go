@@ -126,7 +126,7 @@ func jsonDocument(out *Output, command string) (map[string]any, error) {
 	doc["command"] = command
 	doc["version"] = version
 	if _, ok := doc["units"]; !ok {
-		doc["units"] = "script-J = 1"
+		doc["units"] = unitsStatement()
 	}
 	notes := out.Notes
 	if notes == nil {

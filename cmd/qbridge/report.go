@@ -26,18 +26,21 @@ type reportRow struct {
 var reportColumns = []string{expansion.MethodPadeEps, expansion.MethodPadeX, expansion.MethodTwoPoint}
 
 // reportQuantities are the rows of the report, in order.
-var reportQuantities = []string{"h_1", "h_2", "h_3", "h_4", "h_5", "h_6", expansion.B, expansion.S0, expansion.E0, expansion.AlphaS}
+var reportQuantities = []string{"h_1", "h_2", "h_3", "h_4", "h_5", "h_6", expansion.B, expansion.S0, expansion.E0, expansion.AlphaS, expansion.AlphaG, expansion.AlphaK}
 
 var reportCmd = &cobra.Command{
 	Use:   "report",
 	Short: "One table of everything qbridge knows at one q (default q = 4)",
 	Long: `The main job: at one q, for the dimensions h_1..h_6, the coefficient b, the
-entropy S_0, the ground-state energy E_0 and the Schwarzian coefficient
-alpha_S, print the reference value (exact where an exact value exists, else
-the direct Schwinger-Dyson solver's), the values resummed from the eps-series
+entropy S_0, the ground-state energy E_0, the Schwarzian coefficient alpha_S
+and the soft-mode coefficients alpha_G and alpha_K, print the reference value
+(exact where an exact value exists, else the direct Schwinger-Dyson solver's:
+its ground ladder for E_0 and alpha_S, its zero-temperature route for alpha_G
+and alpha_K), the values resummed from the eps-series
 (around q = 2), from the 1/q-series (around q = infinity) and by the two-point
 Pade that uses both, the published value with its source, and the differences
-from the reference. Errors and methods are in the JSON output and the notes.`,
+from the reference. Errors and methods are in the JSON output and the notes.
+--units J prints E_0, alpha_S, alpha_G and alpha_K in units J = 1.`,
 	Example: `  qbridge report
   qbridge report --q 6 --format tex`,
 	Args: cobra.NoArgs,
@@ -65,6 +68,9 @@ from the reference. Errors and methods are in the JSON output and the notes.`,
 			if err != nil {
 				return libErr(err)
 			}
+			if err := expansion.ConvertResummation(r, opts.units); err != nil {
+				return libErr(err)
+			}
 			row := reportRow{r: r, Estimates: map[string]conformal.Estimate{}}
 			for _, e := range r.Estimates {
 				row.Estimates[e.Method] = e
@@ -83,7 +89,7 @@ func reportOutput(q conformal.QPoint, rows []reportRow) *Output {
 		header = append(header, c, c+" error", c+" - reference")
 	}
 	header = append(header, "published", "published - reference", "source")
-	tab := Table{Title: fmt.Sprintf("qbridge report at q = %s (script-J = 1)", q), Header: header}
+	tab := Table{Title: fmt.Sprintf("qbridge report at q = %s (%s)", q, unitsStatement()), Header: header}
 	var jrows []map[string]any
 	var failures []string
 	for _, r := range rows {
@@ -130,6 +136,8 @@ func reportOutput(q conformal.QPoint, rows []reportRow) *Output {
 		"Pade: best near-diagonal entry of the Pade table free of poles between the expansion point and q; two-point: rational function matching both series",
 		"published: a value printed for this q where one exists; rows marked limiting formula evaluate a large-q formula at this q (a check of the trend, not a value at this q)",
 		"diff = value - reference (the exact value, or the direct solver where no exact value exists); per-value errors are in --format json; b is resummed through b^q",
+		"direct references: E_0 and alpha_S from the ground ladder (the values of qbridge ground and table --method direct), alpha_G and alpha_K from the zero-temperature route (alpha_G from the h = 2 correction of the T = 0 solution, alpha_K = -q k_A'(2) alpha_G)",
+		unitsNote(),
 	}
 	notes = append(notes, failures...)
 	return &Output{JSON: map[string]any{"q": jsonQ(q), "order": reportFlags.order, "rows": jrows}, Tables: []Table{tab}, Notes: notes}

@@ -23,9 +23,13 @@ the methods in one fixed order: eps partial sum, eps Pade (best pole-free entry
 of the Pade table), 1/q partial sum, 1/q Pade, and the two-point Pade that
 matches both ends. Each estimate carries an error estimate and is printed
 beside the reference value (exact for h_n, b, S_0; the direct Schwinger-Dyson
-solver for E_0 and alpha_S) and its difference from it.
+solver: its ground ladder for E_0 and alpha_S, its zero-temperature route
+for alpha_G and alpha_K) and its difference from it.
 Quantities: h_1, h_2, ... (or h_n with --n; alias dims), b, S_0 (s0),
-E_0 (e0), alpha_S (alpha). b is resummed through b^q, analytic at both ends.`,
+E_0 (e0), alpha_S (alpha), alpha_G, alpha_K. b is resummed through b^q,
+analytic at both ends; alpha_G through q alpha_G, alpha_K as it is, from
+their series (those of alpha_S times exact factors). --units J converts E_0,
+alpha_S, alpha_G and alpha_K at this q; --emit needs --units script-J.`,
 	Example: `  qbridge resum h_1 --q 4 --order 20
   qbridge resum s0 --q 3 --format json
   qbridge resum alpha_S --q 6`,
@@ -57,6 +61,9 @@ E_0 (e0), alpha_S (alpha). b is resummed through b^q, analytic at both ends.`,
 			if err != nil {
 				return libErr(err)
 			}
+			if err := expansion.ConvertResummation(r, opts.units); err != nil {
+				return libErr(err)
+			}
 			rs = append(rs, r)
 		}
 		pr.Done()
@@ -79,7 +86,7 @@ func resumOutput(rs []*expansion.Resummation) *Output {
 func resumTable(r *expansion.Resummation) (Table, map[string]any, []string) {
 	ref := r.Reference
 	tab := Table{
-		Title:  fmt.Sprintf("%s at q = %s from series of order %d (eps) and %d (1/q)", r.Name, r.Q, r.OrderEps, r.OrderX),
+		Title:  fmt.Sprintf("%s at q = %s from series of order %d (eps) and %d (1/q) (%s)", r.Name, r.Q, r.OrderEps, r.OrderX, unitsStatement()),
 		Header: []string{"method", "value", "error", "minus " + ref.Kind},
 	}
 	tab.Rows = append(tab.Rows, []string{ref.Kind, fmtBig(ref.Value, refDigits(ref)), fmtErr(ref.Err), ""})

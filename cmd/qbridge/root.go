@@ -6,6 +6,8 @@ import (
 	"strings"
 
 	"github.com/spf13/cobra"
+
+	"qbridge/expansion"
 )
 
 // opts holds the global flags shared by every command.
@@ -15,6 +17,9 @@ var opts struct {
 	Quiet    bool
 	Wide     bool
 	CSVTable int
+	// Units is the --units flag as given; units its parsed value.
+	Units string
+	units expansion.Units
 }
 
 // Limits of the global --digits flag.
@@ -35,7 +40,11 @@ the ground-state energy E_0 and the Schwarzian coefficient alpha_S. It builds
 series around q = 2 (in eps = 1 - 2/q) and q = infinity (in x = 1/q), resums
 them, and checks them against its own Schwinger-Dyson solver.
 
-Units: script-J = 1 (script-J^2 = q J^2 / 2^(q-1)).`,
+Units: script-J = 1 (script-J^2 = q J^2 / 2^(q-1)); --units J prints E_0
+(times sqrt(q/2^(q-1))), alpha_S, alpha_G and alpha_K (divided by it) in
+units J = 1 and reads --beta as beta J. The series around q = inf, check and
+resum --emit stay in script-J (refused with --units J: script-J/J has an
+essential singularity at q = inf); the series around q = 2 are converted.`,
 	SilenceUsage:  true,
 	SilenceErrors: true,
 	PersistentPreRunE: func(cmd *cobra.Command, args []string) error {
@@ -51,6 +60,11 @@ Units: script-J = 1 (script-J^2 = q J^2 / 2^(q-1)).`,
 		if !ok {
 			return usageErr("--format must be one of %s (got %q)", strings.Join(formats, ", "), opts.Format)
 		}
+		u, err := expansion.ParseUnits(opts.Units)
+		if err != nil {
+			return usageErr("--units %q: expected script-J (default) or J", opts.Units)
+		}
+		opts.units = u
 		return nil
 	},
 }
@@ -62,6 +76,7 @@ func init() {
 	pf.BoolVar(&opts.Quiet, "quiet", false, "no progress reports on stderr")
 	pf.BoolVar(&opts.Wide, "wide", false, fmt.Sprintf("text tables at full width (default: split at %d columns)", maxTextWidth))
 	pf.IntVar(&opts.CSVTable, "csv-table", 1, "with --format csv, which table of the output to write (1 = the first; the others are listed on stderr)")
+	pf.StringVar(&opts.Units, "units", "script-J", "energy unit of E_0, alpha_S, alpha_G, alpha_K, E and beta: script-J (script-J^2 = q J^2/2^(q-1)) or J; series around inf, check and --emit need script-J")
 	// Flag-parsing errors are bad input: exit status 2, in one plain line.
 	rootCmd.SetFlagErrorFunc(func(cmd *cobra.Command, err error) error {
 		return usageErr("%s", flagMessage(err))
@@ -96,3 +111,12 @@ func flagMessage(err error) string {
 	}
 	return fmt.Sprintf("%s %q: expected %s", flag, value, want)
 }
+
+// unitsStatement is the units every header and JSON document states.
+func unitsStatement() string { return opts.units.Statement() }
+
+// unitsNote is the units note of every output.
+func unitsNote() string { return opts.units.Note() }
+
+// inJ reports --units J.
+func inJ() bool { return opts.units == expansion.UnitsJ }

@@ -45,11 +45,16 @@ the radius of convergence:
   --around 2    coefficients in eps = 1 - 2/q (q = 2 is eps = 0, q = 4 is eps = 1/2)
   --around inf  coefficients in x = 1/q
 Quantities: h_1, h_2, ... (or h_n with --n 1,3 or --n 1..6; alias dims), b,
-S_0 (s0), E_0 (e0), alpha_S (alpha), logZ (needs --beta).
+S_0 (s0), E_0 (e0), alpha_S (alpha), alpha_G, alpha_K, logZ (needs --beta).
 Around infinity b has x log x terms, so the series of b^q and of
 log(b)/x - log(x) are printed instead of b. E_0 and alpha_S come from
 low-temperature fits of the finite-temperature series, with the fitted S_0
-against its exact series as a built-in check.
+against its exact series as a built-in check; alpha_G and alpha_K are the
+alpha_S series times the exact series of 6 q^2 alpha_0 (alpha_K) and
+6 q^2 alpha_0/(-q k_A'(2)) (alpha_G), both analytic at q = 2.
+--units J: around q = 2 the series of E_0, alpha_S, alpha_G, alpha_K are
+converted (times the eps series of sqrt(q/2^(q-1)) or its inverse); around
+q = inf and for logZ they are refused (no series in 1/q exists in J units).
 With --closed-form (h_n, b, S_0 only) each coefficient is matched by PSLQ
 against a basis of rationals times products of pi^2, zeta(3), zeta(5), log 2;
 a form is printed only when it holds on 10 digits beyond those used to find it.`,
@@ -68,6 +73,9 @@ a form is printed only when it holds on 10 digits beyond those used to find it.`
 		p, ns, err := quantityArg(args, seriesFlags.n, cmd.Flags().Changed("n"))
 		if err != nil {
 			return err
+		}
+		if err := opts.units.CheckSeries(p.Quantity(), end); err != nil {
+			return libErr(err)
 		}
 		if seriesFlags.closedForm && !p.Quantity().Exact {
 			return usageErr("--closed-form applies to h_n, b and S_0, whose coefficients are known to working precision; the %s coefficients are numerical (a few digits), too few for PSLQ", p.Quantity().Name)
@@ -96,6 +104,9 @@ a form is printed only when it holds on 10 digits beyond those used to find it.`
 				Progress: pr.Update,
 			})
 			if err != nil {
+				return libErr(err)
+			}
+			if err := expansion.ConvertSeries(r, p.Quantity().Named(n), end, opts.units); err != nil {
 				return libErr(err)
 			}
 			results = append(results, r)
@@ -255,7 +266,7 @@ func errFreeStrings(xs []*big.Float) []string {
 func init() {
 	f := seriesCmd.Flags()
 	f.StringVar(&seriesFlags.around, "around", "2", "expansion point: 2 (variable eps = 1 - 2/q) or inf (variable x = 1/q)")
-	f.IntVar(&seriesFlags.order, "order", 12, fmt.Sprintf("highest power kept (h_n, b, S_0: 0..%d; E_0, alpha_S, logZ: 0..%d around 2, 2..%d around inf)", conformal.MaxOrder, expansion.MaxEnergyOrderEps, expansion.MaxEnergyOrderX))
+	f.IntVar(&seriesFlags.order, "order", 12, fmt.Sprintf("highest power kept (h_n, b, S_0: 0..%d; E_0, alpha_S, logZ: 0..%d around 2, 2..%d around inf; alpha_K: 0..%d around 2, 0..%d around inf; alpha_G one more at each end)", conformal.MaxOrder, expansion.MaxEnergyOrderEps, expansion.MaxEnergyOrderX, expansion.MaxEnergyOrderEps, expansion.MaxEnergyOrderX-2))
 	f.StringVar(&seriesFlags.n, "n", "1", "dimension index for h_n: a number, a list 1,3 or a range 1..6")
 	f.BoolVar(&seriesFlags.closedForm, "closed-form", false, "identify closed forms of the coefficients by PSLQ (h_n, b, S_0)")
 	f.Float64Var(&seriesFlags.beta, "beta", 0, "inverse temperature beta*script-J (logZ only, required there)")

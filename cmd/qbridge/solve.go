@@ -13,6 +13,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"qbridge/expansion"
 	"qbridge/numeric"
 )
 
@@ -31,7 +32,10 @@ interaction order q and inverse temperature beta (units script-J = 1), on three
 nested grids, and Richardson-extrapolates log Z, E and S = log Z + beta E to
 zero grid spacing. Each number carries an error estimate; E is checked against
 -d log Z / d beta and the mismatch reported. --out writes G(tau) on the finest
-grid (tau in [0, beta/2]; G(beta - tau) = G(tau)) as CSV or JSON by extension.`,
+grid (tau in [0, beta/2]; G(beta - tau) = G(tau)) as CSV or JSON by extension.
+With --units J, --beta is beta J (solved at beta script-J = beta J
+sqrt(q/2^(q-1))), E and -d log Z/d beta are printed in units of J and tau
+in units 1/J; log Z and S are pure numbers.`,
 	Args: cobra.NoArgs,
 	RunE: runSolve,
 }
@@ -101,6 +105,10 @@ func checkSolveInput(q, beta float64, points int, tol float64, out string, outGi
 
 func runSolve(cmd *cobra.Command, args []string) error {
 	fl := solveFlags
+	given := fl.Beta
+	if !math.IsNaN(fl.Q) && fl.Q >= 2 && !math.IsInf(fl.Q, 0) {
+		fl.Beta = opts.units.BetaScriptJ(fl.Beta, fl.Q) // beta J -> beta script-J
+	}
 	if err := checkSolveInput(fl.Q, fl.Beta, fl.Points, fl.Tol, fl.Out, cmd.Flags().Changed("out")); err != nil {
 		return err
 	}
@@ -118,50 +126,59 @@ func runSolve(cmd *cobra.Command, args []string) error {
 			return err
 		}
 	}
-	return emit(cmd, solveOutput(sol))
+	return emit(cmd, solveOutput(sol, given))
 }
 
-func solveOutput(sol *numeric.Solution) *Output {
+// solveOutput formats a solution; beta is the inverse temperature as the
+// user gave it (in the units of --units).
+func solveOutput(sol *numeric.Solution, beta float64) *Output {
 	d := opts.Digits
+	// Units: energies times fe = r in J units (expansion.Units); log Z and
+	// S are pure numbers.
+	fe, _ := opts.units.Factor(expansion.ScaleEnergy, sol.Q)
+	bname := "beta*" + opts.units.String()
 	fine := sol.Levels[0]
 	grids := make([]int, len(sol.Levels))
 	for i, lv := range sol.Levels {
 		grids[i] = lv.Points
 	}
 	js := map[string]any{
-		"q": fmtG(sol.Q), "beta": fmtG(sol.Beta),
+		"q": fmtG(sol.Q), "beta": fmtG(beta),
 		"logZ": fmtFloat(sol.LogZ, d), "logZ_err": fmtErr64(sol.LogZErr),
-		"E": fmtFloat(sol.E, d), "E_err": fmtErr64(sol.EErr),
+		"E": fmtFloat(sol.E*fe, d), "E_err": fmtErr64(sol.EErr * fe),
 		"S": fmtFloat(sol.S, d), "S_err": fmtErr64(sol.SErr),
 		"grids":      grids,
 		"iterations": sol.Iterations,
 		"residual":   fmtErr64(fine.Residual),
 		"tol":        fmtErr64(sol.Tol),
-		"units":      "script-J = 1",
+		"units":      unitsStatement(),
+	}
+	if inJ() {
+		js["beta_script_J"] = fmtG(sol.Beta)
 	}
 	rows := [][]string{
 		{"log Z / N", fmtFloat(sol.LogZ, d), fmtErr64(sol.LogZErr)},
-		{"E / N", fmtFloat(sol.E, d), fmtErr64(sol.EErr)},
+		{"E / N", fmtFloat(sol.E*fe, d), fmtErr64(sol.EErr * fe)},
 		{"S / N", fmtFloat(sol.S, d), fmtErr64(sol.SErr)},
 	}
 	if sol.Checked {
-		js["dlogZ"] = fmtFloat(sol.DLogZ, d)
-		js["mismatch"] = fmtFloat(sol.Mismatch, 3)
-		js["mismatch_err"] = fmtErr64(sol.MismatchErr)
-		rows = append(rows, []string{"-d log Z/d beta", fmtFloat(sol.DLogZ, d), fmtErr64(sol.MismatchErr)})
+		js["dlogZ"] = fmtFloat(sol.DLogZ*fe, d)
+		js["mismatch"] = fmtFloat(sol.Mismatch*fe, 3)
+		js["mismatch_err"] = fmtErr64(sol.MismatchErr * fe)
+		rows = append(rows, []string{"-d log Z/d beta", fmtFloat(sol.DLogZ*fe, d), fmtErr64(sol.MismatchErr * fe)})
 	}
 	notes := []string{
-		fmt.Sprintf("large-N SD equations at q = %s, beta*script-J = %s, units script-J = 1", fmtG(sol.Q), fmtG(sol.Beta)),
+		fmt.Sprintf("large-N SD equations at q = %s, %s = %s (beta*script-J = %s), %s", fmtG(sol.Q), bname, fmtG(beta), fmtG(sol.Beta), unitsNote()),
 		fmt.Sprintf("sine-transform solver, tails 1/w and 1/w^3 subtracted analytically, Anderson-accelerated iteration to residual %s (reached %s, %d iterations in all)", fmtErr64(sol.Tol), fmtErr64(fine.Residual), sol.Iterations),
 		fmt.Sprintf("grids of %v points on [0, beta), Richardson extrapolation in h^4, h^6; error = size of the last correction + tolerance effect", grids),
 	}
 	if sol.Checked {
-		notes = append(notes, fmt.Sprintf("check: E - (-d log Z/d beta) = %s (estimated uncertainty %s)", fmtFloat(sol.Mismatch, 3), fmtErr64(sol.MismatchErr)))
+		notes = append(notes, fmt.Sprintf("check: E - (-d log Z/d beta) = %s (estimated uncertainty %s)", fmtFloat(sol.Mismatch*fe, 3), fmtErr64(sol.MismatchErr*fe)))
 	}
 	return &Output{
 		JSON: js,
 		Tables: []Table{{
-			Title:  fmt.Sprintf("SYK q = %s, beta = %s", fmtG(sol.Q), fmtG(sol.Beta)),
+			Title:  fmt.Sprintf("SYK q = %s, %s = %s (%s)", fmtG(sol.Q), bname, fmtG(beta), unitsStatement()),
 			Header: []string{"quantity", "value", "error"},
 			Rows:   rows,
 		}},
@@ -169,8 +186,15 @@ func solveOutput(sol *numeric.Solution) *Output {
 	}
 }
 
-// writeG writes G(tau) of one grid as CSV (tau,G) or JSON by the file's extension.
+// writeG writes G(tau) of one grid as CSV (tau,G) or JSON by the file's
+// extension, tau and beta in the units of --units (times 1/r = J/script-J
+// in J units; G is a pure number).
 func writeG(path string, lv *numeric.Level) error {
+	ft, _ := opts.units.Factor(expansion.ScaleInverseEnergy, lv.Q)
+	tau := make([]float64, len(lv.Tau))
+	for k, t := range lv.Tau {
+		tau[k] = t * ft
+	}
 	f, err := os.Create(path)
 	if err != nil {
 		return err
@@ -178,15 +202,16 @@ func writeG(path string, lv *numeric.Level) error {
 	switch strings.ToLower(filepath.Ext(path)) {
 	case ".json":
 		err = json.NewEncoder(f).Encode(map[string]any{
-			"q": lv.Q, "beta": lv.Beta, "points": lv.Points,
-			"note": "G(beta - tau) = G(tau); tau in [0, beta/2]",
-			"tau":  lv.Tau, "G": lv.G,
+			"q": lv.Q, "beta": lv.Beta * ft, "points": lv.Points,
+			"note":  "G(beta - tau) = G(tau); tau in [0, beta/2]",
+			"units": unitsStatement(),
+			"tau":   tau, "G": lv.G,
 		})
 	default:
 		w := bufio.NewWriter(f)
-		fmt.Fprintf(w, "# q=%g beta=%g points=%d; G(beta-tau)=G(tau)\ntau,G\n", lv.Q, lv.Beta, lv.Points)
-		for k := range lv.Tau {
-			fmt.Fprintf(w, "%s,%s\n", strconv.FormatFloat(lv.Tau[k], 'g', 17, 64), strconv.FormatFloat(lv.G[k], 'g', 17, 64))
+		fmt.Fprintf(w, "# q=%g beta=%g points=%d units: %s; G(beta-tau)=G(tau)\ntau,G\n", lv.Q, lv.Beta*ft, lv.Points, unitsStatement())
+		for k := range tau {
+			fmt.Fprintf(w, "%s,%s\n", strconv.FormatFloat(tau[k], 'g', 17, 64), strconv.FormatFloat(lv.G[k], 'g', 17, 64))
 		}
 		err = w.Flush()
 	}

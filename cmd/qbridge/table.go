@@ -28,7 +28,7 @@ var tableCmd = &cobra.Command{
 	Long: `Tabulate one or more quantities over a list of q values. QUANTITIES is a
 comma-separated list (or several arguments) of the names the other commands
 use: h_1, h_2, ... (or h_n with --n RANGE; alias dims), b, S_0 (s0),
-E_0 (e0), alpha_S (alpha).
+E_0 (e0), alpha_S (alpha), alpha_G, alpha_K.
 
 --q takes a list 3,4,6, a range with a step 2.5..20:0.5, a geometric range
 2.5..1000:*1.25, and inf, in any combination (3,4..6:1,inf).
@@ -37,7 +37,8 @@ E_0 (e0), alpha_S (alpha).
   exact     the exact value (h_n, b, S_0), from two working precisions
   resummed  the two-point Pade of the series around q = 2 and q = infinity
   direct    the direct Schwinger-Dyson solver's ground ladder (E_0, S_0 fitted,
-            alpha_S; seconds per q)
+            alpha_S; seconds per q) and its zero-temperature route (alpha_G,
+            alpha_K; about a second per q); the same values as resum and report
   all       every source the quantity has, side by side, with differences
             from the reference (exact, else direct)
 Default: exact where it exists, else resummed; a note per column says which.
@@ -46,7 +47,8 @@ The series at both ends are computed once per run (and kept in the user's
 cache directory, so a second run is instant; --no-cache bypasses it, and
 'qbridge cache clear' empties it), and the q values are computed in parallel
 on all cores. With --format tex every value is printed as value(error),
-rounded to its error.`,
+rounded to its error. --units J converts E_0, alpha_S, alpha_G, alpha_K at
+each q (at q = inf alpha_S, alpha_G and alpha_K have no value in J units).`,
 	Example: `  qbridge table alpha_S,E_0 --q 2.5..20:0.5
   qbridge table h_n --n 1..4 --q 3,4,6,inf --format tex
   qbridge table s0 --q 2.5..1000:*1.25 --method all --format csv`,
@@ -151,6 +153,7 @@ func runTable(cmd *cobra.Command, args []string) error {
 	if err != nil {
 		return libErr(err)
 	}
+	expansion.ConvertTable(res, opts.units)
 	if err := emit(cmd, tableOutput(res, opts.Format == "tex")); err != nil {
 		return err
 	}
@@ -198,7 +201,7 @@ func tableOutput(res *expansion.TableResult, tex bool) *Output {
 			}
 		}
 	}
-	tab := Table{Title: "qbridge table (script-J = 1)", Header: header}
+	tab := Table{Title: "qbridge table (" + unitsStatement() + ")", Header: header}
 	var rows []map[string]any
 	for _, row := range res.Rows {
 		cells := []string{row.Q.String()}
@@ -213,7 +216,7 @@ func tableOutput(res *expansion.TableResult, tex bool) *Output {
 			per := map[string]any{}
 			for si, s := range c.Sources {
 				cell := row.Cells[ci][si]
-				cj := cellJSON(cell, d)
+				cj := cellJSON(cell, cellDigits(cell, s, d))
 				var diff string
 				if ref != nil && s != c.Reference && cell.Value != nil && ref.Value != nil {
 					diff = fmtBig(new(big.Float).Sub(cell.Value, ref.Value), 3)
@@ -269,7 +272,7 @@ func tableOutput(res *expansion.TableResult, tex bool) *Output {
 	if tex {
 		notes = append(notes, "values are rounded to their error: 0.0070931(5) means 0.0070931 +- 0.0000005; the error is rounded up to one significant digit (two when it starts with 1)")
 	}
-	notes = append(notes, "units: script-J = 1")
+	notes = append(notes, unitsNote())
 	return &Output{JSON: rows, Tables: []Table{tab}, Notes: notes}
 }
 

@@ -8,6 +8,8 @@
 // series with the colliding pole and zero of k_A cancelled analytically.
 // It also resums them (partial sums, Pade, two-point Pade), identifies
 // closed forms of coefficients (PSLQ) and holds the published check values.
+// The kernel slope k_A'(2) and the exact factor series that turn alpha_S
+// into alpha_K and alpha_G (SoftFactorSeries) live here too.
 //
 // Every number carries an error estimate (the difference of two working
 // precisions) and a method string. Precision is asked for in decimal

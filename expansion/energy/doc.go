@@ -22,5 +22,8 @@
 // of package numeric on its default low-temperature ladder, with h_1 and the
 // exact S_0 from package expansion/conformal, once per q and ladder in a
 // process. The float64 machinery (grids, Richardson extrapolation, fits) is
-// package numeric's. Units are script-J = 1 throughout.
+// package numeric's. alpha_K and alpha_G follow from alpha_S by exact
+// factors (SoftSeries, with conformal.SoftFactorSeries) and, directly, from
+// the zero-temperature route (SoftModeZeroT, cached per q by
+// DirectSoftMode). Units are script-J = 1 throughout.
 package energy

@@ -40,19 +40,36 @@ const resumPrec = 128
 // finite at both ends, from the ground series of F around q = 2 (in eps)
 // and around q = infinity (in x): around infinity the series in x (the x^0
 // and x^1 coefficients of F vanish), around q = 2 the series in
-// u = x - 1/2, from q^2 = 4/(1-eps)^2 and eps = -2u.
+// u = x - 1/2, from q^2 = 4/(1-eps)^2 and eps = -2u. It is
+// NormalisedPower with p = 2.
 func Normalised(eps, invq Coeffs) (atInf, atTwo Coeffs, err error) {
-	if invq.Len() < 3 {
-		return Coeffs{}, Coeffs{}, fmt.Errorf("%w: the 1/q series needs order >= 2", ErrInput)
+	return NormalisedPower(eps, invq, 2)
+}
+
+// NormalisedPower returns the coefficients of q^p F (p >= 0) as a function
+// of x = 1/q from the series of F around q = 2 (in eps) and q = infinity
+// (in x, whose x^0 .. x^(p-1) coefficients must vanish): around infinity
+// the series in x, around q = 2 the series in u = x - 1/2, from
+// q^p = 2^p (1-eps)^(-p) = 2^p sum_j C(p+j-1, j) eps^j and eps = -2u.
+func NormalisedPower(eps, invq Coeffs, p int) (atInf, atTwo Coeffs, err error) {
+	if p < 0 {
+		return Coeffs{}, Coeffs{}, fmt.Errorf("%w: negative power %d", ErrInput, p)
 	}
-	if invq.Values[0] != 0 || invq.Values[1] != 0 {
-		return Coeffs{}, Coeffs{}, fmt.Errorf("energy: the 1/q series of this quantity must start at x^2")
+	if invq.Len() < p+1 {
+		return Coeffs{}, Coeffs{}, fmt.Errorf("%w: the 1/q series needs order >= %d", ErrInput, p)
 	}
-	atInf = Coeffs{Values: invq.Values[2:], Errors: invq.Errors[2:]}
+	for k := 0; k < p; k++ {
+		if invq.Values[k] != 0 {
+			return Coeffs{}, Coeffs{}, fmt.Errorf("energy: the 1/q series of this quantity must start at x^%d", p)
+		}
+	}
+	atInf = Coeffs{Values: invq.Values[p:], Errors: invq.Errors[p:]}
 	n := eps.Len()
-	pre := make([]float64, n) // 4/(1-eps)^2 = 4 sum (j+1) eps^j
+	pre := make([]float64, n) // 2^p (1-eps)^(-p)
+	c := math.Ldexp(1, p)
 	for j := range pre {
-		pre[j] = 4 * float64(j+1)
+		pre[j] = c
+		c *= float64(p+j) / float64(j+1)
 	}
 	v := fsMul(pre, eps.Values, n)
 	e := fsMul(pre, eps.Errors, n) // non-negative weights: errors add
@@ -70,21 +87,31 @@ func Normalised(eps, invq Coeffs) (atInf, atTwo Coeffs, err error) {
 // sums and Pade tables from each end, and the two-point Pade built on both.
 // Each error bar adds the spread of the approximants (truncation) and the
 // largest shift of the value when the coefficients move within their error
-// bars (8 deterministic sign patterns).
+// bars (8 deterministic sign patterns). It is ResumPower with p = 2.
 func Resum(q float64, atInf, atTwo Coeffs) ([]Estimate, error) {
+	return ResumPower(q, 2, atInf, atTwo)
+}
+
+// ResumPower is Resum for the normalised series of q^p F (NormalisedPower):
+// every estimate of q^p F is multiplied by x^p = q^(-p). At q = infinity
+// the estimates are those of q^p F itself (F for p = 0).
+func ResumPower(q float64, p int, atInf, atTwo Coeffs) ([]Estimate, error) {
 	if math.IsNaN(q) || q < 2 {
 		return nil, fmt.Errorf("%w: q must be a real number >= 2, got %g", ErrInput, q)
+	}
+	if p < 0 {
+		return nil, fmt.Errorf("%w: negative power %d", ErrInput, p)
 	}
 	x := 0.0
 	if !math.IsInf(q, 1) {
 		x = 1 / q
 	}
-	q2 := 1.0 / (x * x) // q^2; +Inf at q = infinity
+	xp := math.Pow(x, float64(p))
 	scale := func(v float64) float64 {
 		if x == 0 {
-			return v // q^2 F at q = infinity; the caller labels it
+			return v // q^p F at q = infinity; the caller labels it
 		}
-		return v / q2
+		return v * xp
 	}
 	u := x - 0.5
 	var out []Estimate
@@ -200,40 +227,64 @@ func withCoefficientErrors2(a, b Coeffs, f func(a, b []float64) (*pade.Resummed,
 
 // Resummation is the resummed value of one quantity at one q.
 type Resummation struct {
-	Quantity string  // QuantityE0 or QuantityAlphaS
+	Quantity string  // QuantityE0, QuantityAlphaS, QuantityAlphaG or QuantityAlphaK
 	Q        float64 // interaction order
-	// AtInf and AtTwo are the normalised series q^2 F in x = 1/q around
-	// x = 0 and in x - 1/2 around q = 2 (see Normalised).
+	// Power is p of the normalised function q^p F (SoftPower).
+	Power int
+	// AtInf and AtTwo are the normalised series q^p F in x = 1/q around
+	// x = 0 and in x - 1/2 around q = 2 (see NormalisedPower).
 	AtInf, AtTwo Coeffs
 	Estimates    []Estimate // one per method
 }
 
-// ResumGround resums quantity (QuantityE0 or QuantityAlphaS) at q from the
-// ground series around q = 2 (variable eps, from EpsGround) and around
-// q = infinity (from InvQGround).
+// ResumGround resums quantity (QuantityE0, QuantityAlphaS, QuantityAlphaG
+// or QuantityAlphaK) at q from the ground series around q = 2 (variable
+// eps, from EpsGround) and around q = infinity (from InvQGround). alpha_G
+// and alpha_K are resummed from their own series (SoftSeries of the
+// determined part of the alpha_S series), as q alpha_G and alpha_K.
 func ResumGround(quantity string, q float64, eps, invq *GroundSeries) (*Resummation, error) {
 	if eps == nil || invq == nil || eps.Variable != VarEps || invq.Variable != VarX {
 		return nil, fmt.Errorf("energy: ResumGround needs an eps series and a 1/q series")
 	}
-	var a, b Coeffs
+	a, b, p, err := ResumSeries(quantity, eps, invq)
+	if err != nil {
+		return nil, err
+	}
+	inf, two, err := NormalisedPower(a, b, p)
+	if err != nil {
+		return nil, err
+	}
+	est, err := ResumPower(q, p, inf, two)
+	if err != nil {
+		return nil, err
+	}
+	return &Resummation{Quantity: quantity, Q: q, Power: p, AtInf: inf, AtTwo: two, Estimates: est}, nil
+}
+
+// ResumSeries returns the series a resummation of quantity uses around
+// q = 2 (a, in eps) and q = infinity (b, in x), and the power p of its
+// normalised function q^p F: the orders the fits determine (for alpha_G
+// and alpha_K, SoftSeries of those of alpha_S).
+func ResumSeries(quantity string, eps, invq *GroundSeries) (a, b Coeffs, p int, err error) {
 	switch quantity {
 	case QuantityE0:
 		a, b = eps.E0, invq.E0
-	case QuantityAlphaS:
+	case QuantityAlphaS, QuantityAlphaG, QuantityAlphaK:
 		a, b = eps.AlphaS, invq.AlphaS
 	default:
-		return nil, fmt.Errorf("%w: quantity must be %q or %q, got %q", ErrInput, QuantityE0, QuantityAlphaS, quantity)
+		return a, b, 0, fmt.Errorf("%w: quantity must be %q, %q, %q or %q, got %q", ErrInput, QuantityE0, QuantityAlphaS, QuantityAlphaG, QuantityAlphaK, quantity)
 	}
 	a, b = resolved(a), resolved(b)
-	inf, two, err := Normalised(a, b)
-	if err != nil {
-		return nil, err
+	if quantity == QuantityAlphaG || quantity == QuantityAlphaK {
+		if a, err = SoftSeries(quantity, VarEps, a); err != nil {
+			return a, b, 0, err
+		}
+		if b, err = SoftSeries(quantity, VarX, b); err != nil {
+			return a, b, 0, err
+		}
 	}
-	est, err := Resum(q, inf, two)
-	if err != nil {
-		return nil, err
-	}
-	return &Resummation{Quantity: quantity, Q: q, AtInf: inf, AtTwo: two, Estimates: est}, nil
+	p, err = SoftPower(quantity)
+	return a, b, p, err
 }
 
 // tailBound estimates the omitted tail of a partial sum from its last
