@@ -109,7 +109,7 @@ func softModeFactors(q float64) (kslope, alpha0 float64, err error) {
 
 func checkSoftModeQ(q float64) error {
 	if math.IsNaN(q) || math.IsInf(q, 0) || q <= 2 {
-		return fmt.Errorf("%w: the soft-mode coefficients need a finite q > 2 (k_A'(2) and alpha_0 diverge at q = 2), got %g", ErrInput, q)
+		return fmt.Errorf("%w: the soft-mode coefficients need a finite q > 2 (k_A'(2) has a pole at q = 2, and the direct solvers need q > 2; alpha_0(2) = pi^2 is finite), got %g", ErrInput, q)
 	}
 	return nil
 }
