@@ -51,6 +51,11 @@ type TableRequest struct {
 	Workers int
 	// Progress, when not nil, receives the fraction done and a status.
 	Progress func(frac float64, detail string)
+	// Beta is the inverse temperature of log Z, E and S columns (in
+	// BetaUnits: beta script-J or beta J); 0 when there are none.
+	Beta float64
+	// BetaUnits says in which units Beta is given.
+	BetaUnits Units
 }
 
 // TableColumn is one quantity of a table with the sources shown for it.
@@ -146,6 +151,9 @@ type tableColumn struct {
 	p   Provider
 	n   int
 	app *Approximant
+	// thermo marks a log Z, E or S column, computed from solves.
+	thermo bool
+	solves *thermoSolves
 }
 
 // Tabulate computes the quantities at every q of the request. The series
@@ -160,15 +168,30 @@ func Tabulate(r TableRequest) (*TableResult, error) {
 	if r.Order < 2 || r.Order > conformal.MaxOrder {
 		return nil, fmt.Errorf("%w: order %d: resummation takes orders 2..%d", ErrInput, r.Order, conformal.MaxOrder)
 	}
-	cols := make([]*tableColumn, len(r.Names))
-	for i, name := range r.Names {
+	var cols []*tableColumn
+	var solves *thermoSolves
+	for _, name := range r.Names {
 		p, n, err := ParseName(name)
 		if err != nil {
 			return nil, fmt.Errorf("%w: %v", ErrInput, err)
 		}
 		q := p.Quantity()
 		if q.NeedsBeta {
-			return nil, fmt.Errorf("%w: %s depends on the inverse temperature and is not tabulated over q", ErrInput, q.Name)
+			if !(r.Beta > 0) || r.Beta > MaxBeta {
+				return nil, fmt.Errorf("%w: %s over q needs an inverse temperature beta in (0, %g] (--beta)", ErrInput, q.Name, MaxBeta)
+			}
+			tc, err := thermoColumns(p, r.Source)
+			if err != nil {
+				return nil, err
+			}
+			if solves == nil {
+				solves = newThermoSolves(r.Beta, r.BetaUnits)
+			}
+			for _, c := range tc {
+				c.solves = solves
+			}
+			cols = append(cols, tc...)
+			continue
 		}
 		if q.Indexed && n < 0 {
 			return nil, fmt.Errorf("%w: name the dimensions one by one (h_1, h_2, ...) or give the family with an index range", ErrInput)
@@ -184,7 +207,10 @@ func Tabulate(r TableRequest) (*TableResult, error) {
 		case slices.Contains(src, SourceDirect) && len(src) > 1:
 			c.Reference = SourceDirect
 		}
-		cols[i] = c
+		cols = append(cols, c)
+	}
+	if solves == nil && r.Beta != 0 {
+		return nil, fmt.Errorf("%w: --beta applies to log Z (with E and S) only", ErrInput)
 	}
 	for _, q := range r.Q {
 		if !q.Inf && (q.Q == nil || q.Q.Cmp(big.NewFloat(2)) < 0) {
@@ -220,7 +246,9 @@ func Tabulate(r TableRequest) (*TableResult, error) {
 		return nil, err
 	}
 	for _, c := range cols {
-		c.Note = columnNote(c)
+		if !c.thermo {
+			c.Note = columnNote(c)
+		}
 		if c.app != nil {
 			res.Notes = append(res.Notes, c.app.Notes...)
 		}
@@ -321,6 +349,9 @@ func exactDoc(p Provider) string {
 
 // cell computes one value.
 func (c *tableColumn) cell(src string, q conformal.QPoint, digits int) TableCell {
+	if c.thermo {
+		return c.thermoCell(q)
+	}
 	switch src {
 	case SourceExact:
 		ep := c.p.(ExactProvider)

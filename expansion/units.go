@@ -194,6 +194,9 @@ func (u Units) FactorSeries(s Scaling, end conformal.End, n int, prec uint) (*se
 // ScalingOf returns the scaling of the quantity named name (any name
 // ParseName knows; ScaleNone for an unknown name).
 func ScalingOf(name string) Scaling {
+	if name == ThermoE {
+		return ScaleEnergy
+	}
 	p, _, err := ParseName(name)
 	if err != nil {
 		return ScaleNone
@@ -356,5 +359,5 @@ func ConvertTable(res *TableResult, u Units) {
 			}
 		}
 	}
-	res.Notes = append(res.Notes, "J units: E_0 times r = sqrt(q/2^(q-1)), alpha_S, alpha_G and alpha_K divided by r, at each q")
+	res.Notes = append(res.Notes, "J units: E_0 and E times r = sqrt(q/2^(q-1)), alpha_S, alpha_G and alpha_K divided by r, at each q (beta J given: beta script-J = r beta J)")
 }

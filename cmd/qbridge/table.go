@@ -28,7 +28,10 @@ var tableCmd = &cobra.Command{
 	Long: `Tabulate one or more quantities over a list of q values. QUANTITIES is a
 comma-separated list (or several arguments) of the names the other commands
 use: h_1, h_2, ... (or h_n with --n RANGE; alias dims), b, S_0 (s0),
-E_0 (e0), alpha_S (alpha), alpha_G, alpha_K.
+E_0 (e0), alpha_S (alpha), alpha_G, alpha_K, and logZ with --beta B: at
+fixed inverse temperature, log Z with the energy E and the entropy
+S = log Z + beta E beside it, from one direct Schwinger-Dyson solve per q
+(grid spacing 1/32, Richardson over 3 grids; --method direct only).
 
 --q takes a list 3,4,6, a range with a step 2.5..20:0.5, a geometric range
 2.5..1000:*1.25, and inf, in any combination (3,4..6:1,inf).
@@ -51,7 +54,8 @@ rounded to its error. --units J converts E_0, alpha_S, alpha_G, alpha_K at
 each q (at q = inf alpha_S, alpha_G and alpha_K have no value in J units).`,
 	Example: `  qbridge table alpha_S,E_0 --q 2.5..20:0.5
   qbridge table h_n --n 1..4 --q 3,4,6,inf --format tex
-  qbridge table s0 --q 2.5..1000:*1.25 --method all --format csv`,
+  qbridge table s0 --q 2.5..1000:*1.25 --method all --format csv
+  qbridge table logZ --q 2..8:0.5 --beta 20 --format csv`,
 	Args: cobra.ArbitraryArgs,
 	RunE: runTable,
 }
@@ -63,12 +67,12 @@ func init() {
 	f.IntVar(&tableFlags.order, "order", 16, fmt.Sprintf("series order at each end for the resummation (2..%d; E_0 and alpha_S use at most 10 around 2 and 8 around inf)", conformal.MaxOrder))
 	f.StringVar(&tableFlags.n, "n", "", "dimension indices for h_n: a number, a list 1,3 or a range 1..6")
 	f.BoolVar(&tableFlags.noCache, "no-cache", false, "compute the series afresh and do not store them")
-	f.Float64Var(&tableFlags.beta, "beta", 0, "inverse temperature (log Z, E, S over q: not tabulated yet)")
+	f.Float64Var(&tableFlags.beta, "beta", 0, "inverse temperature beta*script-J (beta*J with --units J) of logZ, which brings E and S beside it (direct solver)")
 	rootCmd.AddCommand(tableCmd)
 }
 
 // tableNames expands the QUANTITIES arguments into one name per column.
-func tableNames(args []string, nFlag string, nGiven bool) ([]string, error) {
+func tableNames(args []string, nFlag string, nGiven, betaGiven bool) ([]string, error) {
 	var names []string
 	for _, a := range args {
 		for _, part := range strings.Split(a, ",") {
@@ -89,7 +93,11 @@ func tableNames(args []string, nFlag string, nGiven bool) ([]string, error) {
 		}
 		q := p.Quantity()
 		if q.NeedsBeta {
-			return nil, usageErr("%s over q at fixed --beta is not tabulated yet: use qbridge series %s --beta B at each end, or qbridge solve", q.Name, name)
+			if !betaGiven {
+				return nil, usageErr("%s depends on the inverse temperature: give --beta B (log Z, E and S at every q, from the direct solver)", q.Name)
+			}
+			out = append(out, q.Name)
+			continue
 		}
 		if !q.Indexed {
 			out = append(out, q.Name)
@@ -122,7 +130,9 @@ func tableNames(args []string, nFlag string, nGiven bool) ([]string, error) {
 
 func runTable(cmd *cobra.Command, args []string) error {
 	if cmd.Flags().Changed("beta") {
-		return usageErr("--beta: log Z, E and S over q at fixed beta are not tabulated yet; use qbridge series logZ --beta B at each end, or qbridge solve")
+		if b := tableFlags.beta; !(b > 0) || b > maxSolveBeta {
+			return usageErr("--beta must be in (0, %g] (got %g): one solve per q resolves at most that", maxSolveBeta, b)
+		}
 	}
 	if tableFlags.q == "" {
 		return usageErr("--q is required: a list 3,4,6, a range 2.5..20:0.5, a geometric range 2.5..1000:*1.25, or inf")
@@ -139,7 +149,7 @@ func runTable(cmd *cobra.Command, args []string) error {
 	default:
 		return usageErr("--method must be exact, resummed, direct or all (got %q)", tableFlags.method)
 	}
-	names, err := tableNames(args, tableFlags.n, cmd.Flags().Changed("n"))
+	names, err := tableNames(args, tableFlags.n, cmd.Flags().Changed("n"), cmd.Flags().Changed("beta"))
 	if err != nil {
 		return err
 	}
@@ -148,6 +158,7 @@ func runTable(cmd *cobra.Command, args []string) error {
 	res, err := expansion.Tabulate(expansion.TableRequest{
 		Names: names, Q: qs, Source: tableFlags.method, Order: tableFlags.order, Digits: workDigits(),
 		Cache: newCache(cmd, tableFlags.noCache), Progress: pr.Update,
+		Beta: tableFlags.beta, BetaUnits: opts.units,
 	})
 	pr.Done()
 	if err != nil {

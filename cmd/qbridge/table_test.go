@@ -6,6 +6,7 @@ import (
 	"errors"
 	"math"
 	"math/big"
+	"strconv"
 	"strings"
 	"testing"
 )
@@ -251,6 +252,9 @@ func TestTableBadInput(t *testing.T) {
 		{"table", "b", "--q", "4", "--n", "2"},
 		{"table", "logz", "--q", "4"},
 		{"table", "h_1", "--q", "4", "--beta", "10"},
+		{"table", "logz", "--q", "4", "--beta", "-1"},
+		{"table", "logz", "--q", "4", "--beta", "1e9"},
+		{"table", "logz", "--q", "4", "--beta", "10", "--method", "resummed"},
 		{"table", "h_1", "--q", "4", "--order", "1"},
 		{"table", "--q", "4"},
 		{"cache", "clear", "extra"},
@@ -259,6 +263,37 @@ func TestTableBadInput(t *testing.T) {
 		var ue *usageError
 		if !errors.As(err, &ue) && !(err != nil && isUsageText(err.Error())) {
 			t.Errorf("%v: got %v, want a usage error", args, err)
+		}
+	}
+}
+
+// log Z over q at fixed beta brings E and S beside it; at q = 2 the values
+// are the free-fermion ones (checked against the exact semicircle integrals
+// in expansion's TestTableThermo), here the document shape and
+// S = log Z + beta E.
+func TestTableLogZ(t *testing.T) {
+	isolateCache(t)
+	m := runJSON(t, "table", "logZ", "--q", "2,3", "--beta", "8")
+	rows, ok := m["results"].([]any)
+	if !ok || len(rows) != 2 {
+		t.Fatalf("want 2 rows, got %v", m["results"])
+	}
+	for _, r := range rows {
+		row := r.(map[string]any)
+		get := func(k string) float64 {
+			c, ok := row[k].(map[string]any)
+			if !ok {
+				t.Fatalf("row %v: no %s", row["q"], k)
+			}
+			v, err := strconv.ParseFloat(c["value"].(string), 64)
+			if err != nil {
+				t.Fatal(err)
+			}
+			return v
+		}
+		lz, e, s := get("logZ"), get("E"), get("S")
+		if d := math.Abs(s - (lz + 8*e)); d > 1e-11 {
+			t.Errorf("q = %v: S - (log Z + beta E) = %g", row["q"], d)
 		}
 	}
 }
