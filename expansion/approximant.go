@@ -116,8 +116,8 @@ func newEnergyApproximant(p energyProvider, order int, cache *Cache) (*Approxima
 	var errE, errI error
 	var wg sync.WaitGroup
 	wg.Add(2)
-	go func() { defer wg.Done(); ge, ne, errE = groundSeries(cache, conformal.AroundTwo, eo) }()
-	go func() { defer wg.Done(); gi, ni, errI = groundSeries(cache, conformal.AroundInf, xo) }()
+	go func() { defer wg.Done(); ge, ne, errE = groundSeries(cache, conformal.AroundTwo, eo, nil) }()
+	go func() { defer wg.Done(); gi, ni, errI = groundSeries(cache, conformal.AroundInf, xo, nil) }()
 	wg.Wait()
 	if errE != nil {
 		return nil, errE
@@ -525,8 +525,8 @@ func conformalSeries(cache *Cache, kind string, n, order, digits int) (two, inf 
 // groundSeries returns the ground series of E_0, S_0 and alpha_S around
 // one end (energy.EpsGround or InvQGround with the default ladders), from
 // the cache when it holds them, else computed (and stored); once per
-// process.
-func groundSeries(cache *Cache, end conformal.End, order int) (*energy.GroundSeries, string, error) {
+// process. progress (may be nil) sees the computation when there is one.
+func groundSeries(cache *Cache, end conformal.End, order int, progress func(float64, string)) (*energy.GroundSeries, string, error) {
 	if err := checkEnergyOrder(end, order); err != nil {
 		return nil, "", err
 	}
@@ -545,7 +545,7 @@ func groundSeries(cache *Cache, end conformal.End, order int) (*energy.GroundSer
 		}) {
 			return g, "read from the cache " + cache.Dir, nil
 		}
-		p := energy.GroundParams{Order: order}
+		p := energy.GroundParams{Order: order, Progress: progress}
 		var err error
 		if end == conformal.AroundTwo {
 			g, err = energy.EpsGround(p)

@@ -221,11 +221,11 @@ func TestEnergyApproximantMatchesResumGround(t *testing.T) {
 			t.Fatal(err)
 		}
 		eo, xo := resumOrders(order)
-		ge, _, err := groundSeries(nil, conformal.AroundTwo, eo)
+		ge, _, err := groundSeries(nil, conformal.AroundTwo, eo, nil)
 		if err != nil {
 			t.Fatal(err)
 		}
-		gi, _, err := groundSeries(nil, conformal.AroundInf, xo)
+		gi, _, err := groundSeries(nil, conformal.AroundInf, xo, nil)
 		if err != nil {
 			t.Fatal(err)
 		}

@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"math"
 	"math/big"
-	"sync"
 
 	"qbridge/expansion/conformal"
 	"qbridge/expansion/energy"
@@ -86,36 +85,12 @@ func bigs(v []float64) []*big.Float {
 	return out
 }
 
-// groundCache keeps the ground series of one process: resum and report use
-// both ends for both quantities.
-var groundCache struct {
-	sync.Mutex
-	m map[[2]int]*energy.GroundSeries
-}
-
+// ground returns the ground series at one end, once per process (resum and
+// report use both ends for several quantities): the memo the table and
+// approximants use, without the on-disk cache.
 func ground(end conformal.End, order int, progress func(float64, string)) (*energy.GroundSeries, error) {
-	groundCache.Lock()
-	defer groundCache.Unlock()
-	key := [2]int{int(end), order}
-	if g, ok := groundCache.m[key]; ok {
-		return g, nil
-	}
-	p := energy.GroundParams{Order: order, Progress: progress}
-	var g *energy.GroundSeries
-	var err error
-	if end == conformal.AroundTwo {
-		g, err = energy.EpsGround(p)
-	} else {
-		g, err = energy.InvQGround(p)
-	}
-	if err != nil {
-		return nil, inputErr(err)
-	}
-	if groundCache.m == nil {
-		groundCache.m = map[[2]int]*energy.GroundSeries{}
-	}
-	groundCache.m[key] = g
-	return g, nil
+	g, _, err := groundSeries(nil, end, order, progress)
+	return g, err
 }
 
 func (p energyProvider) Quantity() Quantity { return p.q }

@@ -23,11 +23,11 @@ func TestSoftQuantities(t *testing.T) {
 	}
 	const order = 10
 	eo, xo := resumOrders(order)
-	ge, _, err := groundSeries(nil, conformal.AroundTwo, eo)
+	ge, _, err := groundSeries(nil, conformal.AroundTwo, eo, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
-	gi, _, err := groundSeries(nil, conformal.AroundInf, xo)
+	gi, _, err := groundSeries(nil, conformal.AroundInf, xo, nil)
 	if err != nil {
 		t.Fatal(err)
 	}

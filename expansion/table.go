@@ -392,16 +392,10 @@ func (c *tableColumn) cell(src string, q conformal.QPoint, digits int) TableCell
 		case AlphaS:
 			v, e = d.AlphaS, d.AlphaSErr
 		}
-		cell := TableCell{Value: big.NewFloat(v), Method: "direct Schwinger-Dyson solver: ground ladder and joint low-temperature fits"}
-		if e > 0 && finite(e) {
-			cell.Err = big.NewFloat(e)
-		} else {
-			cell.ErrNote = "the fits gave no spread"
-		}
 		if !finite(v) {
 			return TableCell{Missing: "failed: the direct solver returned a non-finite value", Failed: true}
 		}
-		return cell
+		return floatCell(v, e, "direct Schwinger-Dyson solver: ground ladder and joint low-temperature fits", "the fits gave no spread")
 	}
 	return TableCell{Missing: "unknown source " + src, Failed: true}
 }
