@@ -220,39 +220,56 @@ func TestEnergyApproximantMatchesResumGround(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		eo, xo := resumOrders(order)
-		ge, _, err := groundSeries(nil, conformal.AroundTwo, eo, nil)
-		if err != nil {
-			t.Fatal(err)
-		}
-		gi, _, err := groundSeries(nil, conformal.AroundInf, xo, nil)
-		if err != nil {
-			t.Fatal(err)
-		}
+		ge, gi := bothGrounds(t, order)
 		kind := map[string]string{"e0": energy.QuantityE0, "alpha": energy.QuantityAlphaS}[name]
 		for _, q := range []float64{2.5, 4, 10} {
-			r, err := energy.ResumGround(kind, q, ge, gi)
-			if err != nil {
-				t.Fatal(err)
-			}
-			var want energy.Estimate
-			for _, e := range r.Estimates {
-				if e.Method == energy.MethodTwoPoint {
-					want = e
-				}
-			}
-			got, err := a.TwoPoint(qp(t, strconv.FormatFloat(q, 'g', -1, 64)))
-			if err != nil {
-				t.Fatal(err)
-			}
+			got := twoPointMatchesResumGround(t, a, name, kind, q, ge, gi)
 			gv, _ := got.Value.Float64()
-			ge, _ := got.Err.Float64()
-			if gv != want.Value || ge != want.Err {
-				t.Errorf("%s q=%g: approximant %v ± %v, ResumGround %v ± %v", name, q, gv, ge, want.Value, want.Err)
-			}
 			if q == 4 && name == "alpha" && math.Abs(gv-0.007) > 5e-4 {
 				t.Errorf("alpha_S(4) = %v, published ~0.007", gv)
 			}
 		}
 	}
+}
+
+// bothGrounds returns the ground series at both ends for the resummation
+// orders of order.
+func bothGrounds(t *testing.T, order int) (ge, gi *energy.GroundSeries) {
+	t.Helper()
+	eo, xo := resumOrders(order)
+	ge, _, err := groundSeries(nil, conformal.AroundTwo, eo, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	gi, _, err = groundSeries(nil, conformal.AroundInf, xo, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return ge, gi
+}
+
+// twoPointMatchesResumGround checks that the approximant's two-point
+// estimate at q is exactly energy.ResumGround's, and returns it.
+func twoPointMatchesResumGround(t *testing.T, a *Approximant, name, kind string, q float64, ge, gi *energy.GroundSeries) conformal.Estimate {
+	t.Helper()
+	r, err := energy.ResumGround(kind, q, ge, gi)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var want energy.Estimate
+	for _, e := range r.Estimates {
+		if e.Method == energy.MethodTwoPoint {
+			want = e
+		}
+	}
+	got, err := a.TwoPoint(qp(t, strconv.FormatFloat(q, 'g', -1, 64)))
+	if err != nil {
+		t.Fatal(err)
+	}
+	gv, _ := got.Value.Float64()
+	gerr, _ := got.Err.Float64()
+	if gv != want.Value || gerr != want.Err {
+		t.Errorf("%s q=%g: approximant %v ± %v, ResumGround %v ± %v", name, q, gv, gerr, want.Value, want.Err)
+	}
+	return got
 }

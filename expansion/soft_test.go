@@ -2,7 +2,6 @@ package expansion
 
 import (
 	"math"
-	"strconv"
 	"testing"
 
 	"qbridge/expansion/conformal"
@@ -22,15 +21,7 @@ func TestSoftQuantities(t *testing.T) {
 		t.Skip("ground series take seconds")
 	}
 	const order = 10
-	eo, xo := resumOrders(order)
-	ge, _, err := groundSeries(nil, conformal.AroundTwo, eo, nil)
-	if err != nil {
-		t.Fatal(err)
-	}
-	gi, _, err := groundSeries(nil, conformal.AroundInf, xo, nil)
-	if err != nil {
-		t.Fatal(err)
-	}
+	ge, gi := bothGrounds(t, order)
 	at := map[string]conformal.Estimate{}
 	for _, name := range []string{AlphaS, AlphaG, AlphaK} {
 		a, err := NewApproximant(name, order, 20, nil)
@@ -40,25 +31,7 @@ func TestSoftQuantities(t *testing.T) {
 		p, _, _ := ParseName(name)
 		kind := p.(energyProvider).kind
 		for _, q := range []float64{2.5, 4, 10} {
-			r, err := energy.ResumGround(kind, q, ge, gi)
-			if err != nil {
-				t.Fatal(err)
-			}
-			var want energy.Estimate
-			for _, e := range r.Estimates {
-				if e.Method == energy.MethodTwoPoint {
-					want = e
-				}
-			}
-			got, err := a.TwoPoint(qp(t, strconv.FormatFloat(q, 'g', -1, 64)))
-			if err != nil {
-				t.Fatal(err)
-			}
-			gv, _ := got.Value.Float64()
-			gerr, _ := got.Err.Float64()
-			if gv != want.Value || gerr != want.Err {
-				t.Errorf("%s q=%g: approximant %v ± %v, ResumGround %v ± %v", name, q, gv, gerr, want.Value, want.Err)
-			}
+			got := twoPointMatchesResumGround(t, a, name, kind, q, ge, gi)
 			if q == 4 {
 				at[name] = got
 			}

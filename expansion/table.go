@@ -392,9 +392,6 @@ func (c *tableColumn) cell(src string, q conformal.QPoint, digits int) TableCell
 		case AlphaS:
 			v, e = d.AlphaS, d.AlphaSErr
 		}
-		if !finite(v) {
-			return TableCell{Missing: "failed: the direct solver returned a non-finite value", Failed: true}
-		}
 		return floatCell(v, e, "direct Schwinger-Dyson solver: ground ladder and joint low-temperature fits", "the fits gave no spread")
 	}
 	return TableCell{Missing: "unknown source " + src, Failed: true}
@@ -424,14 +421,5 @@ func softCell(name string, q float64) TableCell {
 	if kind == energy.QuantityAlphaK {
 		v, e, m = d.AlphaK, d.AlphaKErr, d.MethodK
 	}
-	if !finite(v) {
-		return TableCell{Missing: "failed: the zero-temperature route returned a non-finite value", Failed: true}
-	}
-	cell := TableCell{Value: big.NewFloat(v), Method: "direct zero-temperature Schwinger-Dyson route: " + m}
-	if e > 0 && finite(e) {
-		cell.Err = big.NewFloat(e)
-	} else {
-		cell.ErrNote = "the route gave no spread"
-	}
-	return cell
+	return floatCell(v, e, "direct zero-temperature Schwinger-Dyson route: "+m, "the route gave no spread")
 }

@@ -91,15 +91,16 @@ func (c *tableColumn) thermoCell(q conformal.QPoint) TableCell {
 	case ThermoS:
 		v, e = s.S, s.SErr
 	}
-	if !finite(v) {
-		return TableCell{Missing: "failed: the direct solver returned a non-finite value", Failed: true}
-	}
 	return floatCell(v, e, fmt.Sprintf("direct Schwinger-Dyson solve at beta script-J = %.6g, %d grid points, Richardson over 3 grids", beta, numeric.DefaultPoints(beta)), "the extrapolation gave no spread")
 }
 
-// floatCell is a float64 value with its error; an error that is not a
-// positive finite number is "not estimated" with the reason noErr.
+// floatCell is a float64 value of the direct solver with its error; an
+// error that is not a positive finite number is "not estimated" with the
+// reason noErr, a non-finite value a failure.
 func floatCell(v, e float64, method, noErr string) TableCell {
+	if !finite(v) {
+		return TableCell{Missing: "failed: the direct solver returned a non-finite value", Failed: true}
+	}
 	cell := TableCell{Value: big.NewFloat(v), Method: method}
 	if e > 0 && finite(e) {
 		cell.Err = big.NewFloat(e)

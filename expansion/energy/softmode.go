@@ -114,19 +114,25 @@ func checkSoftModeQ(q float64) error {
 	return nil
 }
 
+// softModeInputs checks q and returns what both routes need: the conformal
+// data (h_n for the correction exponents), k_A'(2) and alpha_0.
+func softModeInputs(q float64) (c numeric.ConformalData, kslope, alpha0 float64, err error) {
+	if err = checkSoftModeQ(q); err != nil {
+		return c, 0, 0, err
+	}
+	if c, err = SoftModeConformalData(q); err != nil {
+		return c, 0, 0, err
+	}
+	kslope, alpha0, err = softModeFactors(q)
+	return c, kslope, alpha0, err
+}
+
 // SoftModeZeroT is the zero-temperature route at q (2.5 <= q < infinity):
 // numeric.SolveZeroTGround with h_1..h_6 from package expansion/conformal
 // gives alpha_G (and E_0), and alpha_K = -q k_A'(2) alpha_G,
 // alpha_S = alpha_K/(6 q^2 alpha_0). About a second on one core.
 func SoftModeZeroT(q float64, progress func(float64, string)) (*SoftModeRoute, error) {
-	if err := checkSoftModeQ(q); err != nil {
-		return nil, err
-	}
-	c, err := SoftModeConformalData(q)
-	if err != nil {
-		return nil, err
-	}
-	ks, a0, err := softModeFactors(q)
+	c, ks, a0, err := softModeInputs(q)
 	if err != nil {
 		return nil, err
 	}
@@ -161,11 +167,7 @@ func SoftModeFiniteT(p numeric.LadderParams) (*SoftModeRoute, error) {
 	if p.Steps == 0 {
 		p = numeric.PrecisionLadder(q, p.Progress)
 	}
-	c, err := SoftModeConformalData(q)
-	if err != nil {
-		return nil, err
-	}
-	ks, a0, err := softModeFactors(q)
+	c, ks, a0, err := softModeInputs(q)
 	if err != nil {
 		return nil, err
 	}
