@@ -193,11 +193,23 @@ func checkResolved(c Coeffs, order int, h float64) error {
 // extrapolateRows Richardson-extrapolates the first n coefficients one by
 // one in the grid spacing (numeric.Richardson with richardsonPowers); rows
 // are the grids, finest first. Each error bar is the last correction plus
-// a round-off floor of 2^-44 times the largest value on the grids (on one
-// grid, numeric.Richardson's nominal 1e-3 relative).
+// a round-off floor: 2^-44 times the largest value of that coefficient on
+// the grids, plus (k+1) 2^-50 times the largest coefficient of the row. The
+// second, absolute part is there because every coefficient is a
+// difference of float64 sums of the size of the largest one: the exact
+// high-temperature coefficients (package expansion/hightemp) show small
+// high-order coefficients off by about 1e-16 absolute, far beyond 2^-44 of
+// their size, growing with the order through the change of variables.
+// On one grid the error is numeric.Richardson's nominal 1e-3 relative.
 func extrapolateRows(rows [][]float64, n int) Coeffs {
 	c := Coeffs{Values: make([]float64, n), Errors: make([]float64, n)}
 	v := make([]float64, len(rows))
+	scale := 0.0
+	for _, r := range rows {
+		for k := 0; k < n && k < len(r); k++ {
+			scale = math.Max(scale, math.Abs(r[k]))
+		}
+	}
 	for k := 0; k < n; k++ {
 		floor := 0.0
 		for i, r := range rows {
@@ -206,7 +218,7 @@ func extrapolateRows(rows [][]float64, n int) Coeffs {
 		}
 		val, err := numeric.Richardson(v, richardsonPowers)
 		if len(v) > 1 {
-			err += floor * 0x1p-44
+			err += floor*0x1p-44 + scale*0x1p-50*float64(k+1)
 		}
 		c.Values[k], c.Errors[k] = val, err
 	}

@@ -1,0 +1,145 @@
+package hightemp
+
+import (
+	"fmt"
+	"math/big"
+
+	"qbridge/series"
+	"qbridge/series/pade"
+	"qbridge/series/scalar"
+)
+
+// Sum is a high-temperature quantity summed at one beta.
+type Sum struct {
+	// Value and Err are the estimate and its error; Err is nil when not
+	// estimated, and Reason says why.
+	Value, Err *big.Float
+	// Method says how the value was obtained.
+	Method, Reason string
+}
+
+// Summed holds the two ways of summing a quantity at one beta.
+type Summed struct {
+	// Partial is the partial sum through the highest order, with a
+	// geometric tail bound from the radius.
+	Partial Sum
+	// Pade is the Pade table in t = beta^2 of the same coefficients.
+	Pade Sum
+	// Radius is the nearest singularity of log Z in t.
+	Radius RadiusEstimate
+}
+
+// Best returns the sum with the smaller stated error (Partial if neither
+// has one).
+func (s *Summed) Best() Sum {
+	switch {
+	case s.Pade.Err == nil:
+		return s.Partial
+	case s.Partial.Err == nil || s.Pade.Err.Cmp(s.Partial.Err) < 0:
+		return s.Pade
+	}
+	return s.Partial
+}
+
+// Summable reports whether kind is a function of beta (the cumulants and
+// moments are numbers, not summed).
+func Summable(kind Kind) bool {
+	return kind == LogZ || kind == Energy || kind == Entropy || kind == Heat
+}
+
+// Evaluate sums kind at beta (beta script-J, > 0) from the coefficients c,
+// in prec bits. The quantity is a series in t = beta^2 (times beta for
+// the energy): f = beta^s (f_0 + sum_k f_k t^k). The partial sum's error is
+// twice the geometric tail |f_K t^K| rho/(1-rho), rho = t/|t_c| from the
+// radius; at or beyond the radius, or without one, it is not estimated.
+// The Pade table's error is its spread (series/pade.PadeTable).
+func Evaluate(kind Kind, c *Coefficients, beta *big.Float, prec uint) (*Summed, error) {
+	if !Summable(kind) {
+		return nil, fmt.Errorf("%w: %s is not a function of beta", ErrInput, kind)
+	}
+	if beta == nil || beta.Sign() <= 0 || beta.IsInf() {
+		return nil, fmt.Errorf("%w: beta must be positive and finite", ErrInput)
+	}
+	K := c.Order()
+	// f_k in t, k = 0..K (for the energy f_k multiplies beta t^(k-1))
+	f := make([]*big.Float, K+1)
+	for i := range f {
+		f[i] = new(big.Float).SetPrec(prec)
+	}
+	odd := kind == Energy
+	for _, term := range Derive(kind, c) {
+		k := term.Power / 2
+		if odd {
+			k = (term.Power - 1) / 2
+		}
+		if term.HalfLog2 {
+			f[k].Quo(scalar.Ln2(prec), big.NewFloat(2))
+			continue
+		}
+		f[k].SetRat(term.Value)
+	}
+	if odd {
+		f = f[:K] // E = beta sum_{k=0}^{K-1} f_k t^k
+	}
+	t := new(big.Float).SetPrec(prec).Mul(beta, beta)
+	out := &Summed{Radius: Radius(c.A, prec)}
+	pre := big.NewFloat(1).SetPrec(prec)
+	if odd {
+		pre.Set(beta)
+	}
+	out.Partial = partialSum(f, t, pre, out.Radius, prec)
+	s, err := series.FromBig(prec, f)
+	if err != nil {
+		return nil, err
+	}
+	out.Pade = padeSum(s, t, pre, prec)
+	return out, nil
+}
+
+func partialSum(f []*big.Float, t, pre *big.Float, r RadiusEstimate, prec uint) Sum {
+	sum := new(big.Float).SetPrec(prec)
+	for k := len(f) - 1; k >= 0; k-- {
+		sum.Mul(sum, t)
+		sum.Add(sum, f[k])
+	}
+	sum.Mul(sum, pre)
+	K := len(f) - 1
+	out := Sum{Value: sum, Method: fmt.Sprintf("partial sum through t^%d (t = beta^2), exact coefficients", K)}
+	if r.T == nil {
+		out.Reason = "tail not estimated: " + r.Reason
+		return out
+	}
+	// the radius is known to |T| - TErr at worst
+	lo := new(big.Float).SetPrec(prec).Abs(r.T)
+	lo.Sub(lo, r.TErr)
+	rho := new(big.Float).SetPrec(prec).Quo(t, lo)
+	if lo.Sign() <= 0 || rho.Cmp(big.NewFloat(1)) >= 0 {
+		out.Reason = fmt.Sprintf("tail not estimated: beta^2 = %s is not inside the radius |t_c| = %s", t.Text('g', 6), new(big.Float).Abs(r.T).Text('g', 6))
+		return out
+	}
+	last := new(big.Float).SetPrec(prec).Abs(f[K])
+	for range K {
+		last.Mul(last, t)
+	}
+	last.Mul(last, new(big.Float).Abs(pre))
+	tail := new(big.Float).SetPrec(prec).Quo(rho, new(big.Float).SetPrec(prec).Sub(big.NewFloat(1), rho))
+	tail.Mul(tail, last)
+	tail.Mul(tail, big.NewFloat(2))
+	floor := new(big.Float).SetMantExp(new(big.Float).Abs(sum), -int(prec)+8)
+	if tail.Cmp(floor) < 0 {
+		tail = floor
+	}
+	out.Err = tail
+	out.Method += "; error twice the geometric tail |f_K t^K| rho/(1 - rho), rho = t/|t_c|"
+	return out
+}
+
+func padeSum(s *series.Series, t, pre *big.Float, prec uint) Sum {
+	r, err := pade.PadeTable(s, t, pade.PadeTableOptions{})
+	if err != nil {
+		return Sum{Reason: "Pade table failed: " + err.Error()}
+	}
+	v := new(big.Float).SetPrec(prec).Mul(r.Value, pre)
+	e := new(big.Float).SetPrec(prec).Mul(r.Err, new(big.Float).Abs(pre))
+	return Sum{Value: v, Err: e, Method: fmt.Sprintf("Pade [%d/%d] in t = beta^2 of the exact coefficients; error the spread of the %d highest admissible entries", r.L, r.M, r.Used)}
+}
