@@ -91,6 +91,19 @@ func TestBadInputTable(t *testing.T) {
 		{[]string{"series", "alpha_K", "--around", "inf", "--order", "15"}, "takes orders 0..14"},
 		{[]string{"series", "alpha_G", "--around", "2", "--order", "42"}, "takes orders 0..41"},
 		{[]string{"table", "alpha_G", "--q", "4", "--method", "exact"}, "has no exact value"},
+		{[]string{"hightemp"}, "hightemp needs one quantity"},
+		{[]string{"hightemp", "zeta"}, `unknown quantity "zeta" for hightemp`},
+		{[]string{"hightemp", "logz", "--order", "-1"}, "--order must be between 1 and"},
+		{[]string{"hightemp", "logz", "--order", "61"}, "--order must be between 1 and"},
+		{[]string{"hightemp", "logz", "--q", "1.5"}, "q must be at least 2"},
+		{[]string{"hightemp", "logz", "--q", "4,x"}, `--q "x": expected numbers or fractions`},
+		{[]string{"hightemp", "logz", "--q", "inf"}, "drop --q"},
+		{[]string{"hightemp", "logz", "--beta", "1"}, "add --q"},
+		{[]string{"hightemp", "logz", "--q", "4", "--beta", "-1"}, "expected a positive number"},
+		{[]string{"hightemp", "cumulants", "--q", "4", "--beta", "1"}, "--beta applies to logz"},
+		{[]string{"hightemp", "logz", "--units", "J"}, "give --q or use --units script-J"},
+		{[]string{"hightemp", "logz", "--q", "9/2", "--units", "J"}, "rational only for integer q"},
+		{[]string{"hightemp", "energy", "--q", "4", "--units", "J"}, "not rational"},
 	}
 	if len(cases) < 40 {
 		t.Fatalf("only %d cases", len(cases))

@@ -30,6 +30,8 @@ func TestNoMeaninglessErrors(t *testing.T) {
 		run{[]string{"series", "b", "--around", "inf", "--order", "10"}},
 		run{[]string{"series", "alpha_S", "--around", "inf", "--order", "4"}},
 		run{[]string{"series", "E_0", "--around", "2", "--order", "4"}},
+		run{[]string{"hightemp", "logz", "--order", "30", "--q", "2.5,3,4,6,10", "--beta", "1.2"}},
+		run{[]string{"hightemp", "entropy", "--order", "12", "--q", "4", "--beta", "3"}},
 	)
 	for _, r := range runs {
 		doc := runJSON(t, r.args...)

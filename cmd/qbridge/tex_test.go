@@ -53,6 +53,8 @@ func TestTeXOutput(t *testing.T) {
 		{"resum", "S_0", "--q", "4", "--order", "8"},
 		{"exact", "dims", "--q", "4", "--n", "0..3"},
 		{"series", "b", "--around", "inf", "--order", "6"},
+		{"hightemp", "logz", "--order", "6"},
+		{"hightemp", "moments", "--order", "4", "--q", "4"},
 	}
 	engine, _ := exec.LookPath("pdflatex")
 	for _, args := range runs {

@@ -61,3 +61,30 @@ func TestRadiusRefuses(t *testing.T) {
 		t.Errorf("four coefficients gave a radius")
 	}
 }
+
+// Where no exact point is known, the estimate from 30 coefficients must
+// hold against the one from 60, whose own error is far smaller.
+func TestRadiusStableInOrder(t *testing.T) {
+	if testing.Short() {
+		t.Skip("order-60 solves")
+	}
+	for _, q := range []int64{3, 4, 6} {
+		lo, err := Solve(big.NewRat(q, 1), 30)
+		if err != nil {
+			t.Fatal(err)
+		}
+		hi, err := Solve(big.NewRat(q, 1), 60)
+		if err != nil {
+			t.Fatal(err)
+		}
+		a, b := Radius(lo.A, 256), Radius(hi.A, 256)
+		if a.T == nil || b.T == nil {
+			t.Fatalf("q = %d: no radius (%s / %s)", q, a.Reason, b.Reason)
+		}
+		d := new(big.Float).Sub(a.T, b.T)
+		d.Abs(d)
+		if d.Cmp(new(big.Float).Add(a.TErr, b.TErr)) > 0 {
+			t.Errorf("q = %d: t_c(30) = %s +- %s, t_c(60) = %s +- %s", q, a.T.Text('g', 15), a.TErr.Text('g', 2), b.T.Text('g', 15), b.TErr.Text('g', 2))
+		}
+	}
+}
