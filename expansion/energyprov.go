@@ -8,6 +8,7 @@ import (
 
 	"qbridge/expansion/conformal"
 	"qbridge/expansion/energy"
+	"qbridge/expansion/hightemp"
 	"qbridge/series/scalar"
 )
 
@@ -399,13 +400,57 @@ func (p logZProvider) Series(r Request) (*SeriesResult, error) {
 		return nil, inputErr(err)
 	}
 	method := fmt.Sprintf("finest grid %d points on [0, beta), %d grids, Richardson in the grid spacing, beta = %g", f.Points, f.Levels, b)
-	return &SeriesResult{
+	res := &SeriesResult{
 		Parts: []*conformal.Coefficients{
 			{Quantity: p.q.Name, End: r.End, N: -1, Values: bigs(f.LogZ.Values), Errors: bigs(f.LogZ.Errors), Method: method, Prec: 53},
 			{Quantity: "E", End: r.End, N: -1, Values: bigs(f.E.Values), Errors: bigs(f.E.Errors), Method: method, Prec: 53},
 		},
 		Notes: []string{method + "."},
-	}, nil
+	}
+	ck, err := highTempCheck(r.End, b, f.LogZ)
+	if err != nil {
+		return nil, err
+	}
+	res.Check = ck
+	res.Notes = append(res.Notes, ck.Against+".")
+	return res, nil
+}
+
+// highTempOrder is the order in (beta script-J)^2 of the exact
+// high-temperature coefficients behind the cross-check of the log Z
+// series (about a second, once per process).
+const highTempOrder = 30
+
+// highTempCheck holds the grid coefficients of log Z at one beta against
+// the same coefficients from the exact high-temperature series
+// (expansion/hightemp): every power of eps or 1/q of log Z is a sum over
+// orders in beta^2 of exact rationals, summed (or Pade-resummed in beta^2)
+// at this beta.
+func highTempCheck(end conformal.End, beta float64, grid energy.Coeffs) (*SeriesCheck, error) {
+	s, err := SymbolicHighTemp(highTempOrder, nil)
+	if err != nil {
+		return nil, err
+	}
+	v := hightemp.VarEps
+	if end == conformal.AroundInf {
+		v = hightemp.VarX
+	}
+	sums, err := s.EndSeries(v, new(big.Float).SetFloat64(beta), len(grid.Values)-1, 192)
+	if err != nil {
+		return nil, err
+	}
+	ck := &SeriesCheck{Name: LogZ, Fitted: bigs(grid.Values), FittedErr: bigs(grid.Errors),
+		Against: fmt.Sprintf("exact high-temperature coefficients through (beta script-J)^%d, expanded in %s and summed at beta = %g (partial sum or Pade in beta^2, whichever states the smaller error)", 2*highTempOrder, v, beta)}
+	for _, x := range sums {
+		ck.Exact = append(ck.Exact, x.Value)
+		ck.ExactErr = append(ck.ExactErr, x.Err)
+		reason := ""
+		if x.Err == nil {
+			reason = x.Reason
+		}
+		ck.ExactReason = append(ck.ExactReason, reason)
+	}
+	return ck, nil
 }
 
 func (p logZProvider) Resum(conformal.QPoint, Request) (*Resummation, error) {

@@ -57,6 +57,14 @@ type SeriesCheck struct {
 	Fitted, FittedErr []*big.Float
 	// Exact are the exactly known coefficients.
 	Exact []*big.Float
+	// ExactErr, when not nil, are errors of Exact (an exact formula summed
+	// numerically); a nil entry is exact or not estimated (ExactReason).
+	ExactErr []*big.Float
+	// ExactReason says, per coefficient, why ExactErr is nil (empty: exact).
+	ExactReason []string
+	// Against names the exact column and how it is obtained; empty means
+	// "exact series".
+	Against string
 }
 
 // Reference is the value resummations are compared with: exact where an

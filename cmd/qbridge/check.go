@@ -49,7 +49,10 @@ The language: numbers (5, 0.25, 5/6 is read as the rational), + - * / ^ and
 parentheses, multiplication always written with *; the constant pi and
 zeta(n) (integer n >= 2); sqrt, exp, log, sin, cos, tan, Gamma, psi; the
 variables q, eps = 1 - 2/q and x = 1/q (each usable around either end); the
-quantities h_1, h_2, ..., b, S_0, E_0, alpha_S, alpha_G, alpha_K (and their aliases); and the
+quantities h_1, h_2, ..., b, S_0, E_0, alpha_S, alpha_G, alpha_K (and their aliases);
+the exact high-temperature coefficients (qbridge hightemp) logz_p, energy_p,
+entropy_p, heat_p (of (beta script-J)^p), kappa_n (the cumulant kappa_n/N)
+and mu_n (the moment), exact polynomials in 1/q; and the
 order term O(eps^k), O(x^k) or O(1/q^k), which names the end and the order
 the claim is made to. Without an O() term the claim's variable names the end
 (with none, both ends are checked) and --order (default 6) the order.

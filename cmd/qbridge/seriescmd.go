@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math/big"
 	"strconv"
+	"strings"
 
 	"github.com/spf13/cobra"
 
@@ -225,6 +226,9 @@ func coefficientsTable(c *conformal.Coefficients, end conformal.End, forms []*co
 
 // checkTable prints a built-in check: fitted coefficients against exact ones.
 func checkTable(ck *expansion.SeriesCheck, end conformal.End) (Table, map[string]any) {
+	if ck.ExactErr != nil {
+		return checkTableWithErrors(ck, end)
+	}
 	tab := Table{
 		Title:  fmt.Sprintf("built-in check: %s fitted against its exact series around q = %s", ck.Name, end),
 		Header: []string{"k", ck.Name + " fitted", "error", ck.Name + " exact", "(fitted-exact)/error"},
@@ -241,6 +245,55 @@ func checkTable(ck *expansion.SeriesCheck, end conformal.End) (Table, map[string
 		"coefficients": valueStrings(ck.Fitted, ck.FittedErr, d),
 		"errors":       errStrings(ck.FittedErr),
 		"exact":        errFreeStrings(ck.Exact),
+		"sigma":        sig,
+	}
+}
+
+// checkTableWithErrors prints a check whose exact column is an exact
+// formula summed numerically, with its own error: the deviation is in
+// units of the combined error.
+func checkTableWithErrors(ck *expansion.SeriesCheck, end conformal.End) (Table, map[string]any) {
+	tab := Table{
+		Title:  fmt.Sprintf("cross-check: %s on grids against exact high-temperature coefficients, around q = %s, coefficients of %s^k", ck.Name, end, end.Variable()),
+		Header: []string{"k", "grids", "error", "exact high-T", "error", "(grids-exact)/error"},
+	}
+	var sig []string
+	var exactErrs []any
+	d := digitsFor(53)
+	for k := range ck.Fitted {
+		if k >= len(ck.Exact) {
+			break
+		}
+		e := new(big.Float).Set(ck.FittedErr[k])
+		exErr := fmtErr(ck.ExactErr[k])
+		if ck.ExactErr[k] != nil {
+			e.Add(e, ck.ExactErr[k])
+			exactErrs = append(exactErrs, exErr)
+		} else {
+			if ck.ExactReason[k] != "" && !strings.HasPrefix(ck.ExactReason[k], "exact") {
+				e = nil // the exact column's error is unknown: no verdict
+			}
+			exErr = ck.ExactReason[k]
+			if exErr == "" {
+				exErr = "exact"
+			}
+			exactErrs = append(exactErrs, nil)
+		}
+		s := "-"
+		if e != nil {
+			s = sigmaString(ck.Fitted[k], ck.Exact[k], e)
+		}
+		sig = append(sig, s)
+		tab.Rows = append(tab.Rows, []string{strconv.Itoa(k), fmtValue(ck.Fitted[k], ck.FittedErr[k], d), fmtErr(ck.FittedErr[k]),
+			fmtValue(ck.Exact[k], ck.ExactErr[k], d), exErr, s})
+	}
+	return tab, map[string]any{
+		"quantity":     ck.Name,
+		"coefficients": valueStrings(ck.Fitted, ck.FittedErr, d),
+		"errors":       errStrings(ck.FittedErr),
+		"exact":        errFreeStrings(ck.Exact[:len(sig)]),
+		"exact_errors": exactErrs,
+		"exact_method": ck.Against,
 		"sigma":        sig,
 	}
 }

@@ -410,3 +410,40 @@ func TestEnergyClaims(t *testing.T) {
 		t.Errorf("q^2*E_0 = -1/2: %s", r.Verdict(8))
 	}
 }
+
+// High-temperature coefficients in claims: kappa_6/N = 3/q^2 - 1/q^3
+// exactly (the t^3 coefficient (3q - 1)/(720 q^3) of log Z; q = 2 gives the
+// semicircle's 5/8 = 720/1152) holds at both ends and to every order, and a
+// wrong claim fails at the first wrong power.
+func TestHighTempClaims(t *testing.T) {
+	e := NewEvaluator(20)
+	for _, c := range []struct {
+		text  string
+		holds bool
+	}{
+		{"kappa_6 = 3/q^2 - 1/q^3 + O(1/q^8)", true},
+		{"kappa_6 = 3*x^2 - x^3 + O(eps^6)", true},
+		{"logz_4 = -1/(48*q^2) + O(1/q^6)", true},
+		{"heat_2 = 2*logz_2 + O(1/q^6)", true},
+		{"mu_4 = kappa_4 + 3*kappa_2^2 + O(eps^5)", true},
+		{"kappa_8 = -46/q^2 + O(1/q^3)", true},
+		{"kappa_8 = -46*24/q^2 + O(1/q^3)", false},
+		{"kappa_6 = 3/q^2 + O(1/q^4)", false},
+	} {
+		cl, err := Parse(c.text)
+		if err != nil {
+			t.Fatalf("%s: %v", c.text, err)
+		}
+		pl, err := cl.Plan(nil, -1)
+		if err != nil {
+			t.Fatalf("%s: %v", c.text, err)
+		}
+		r, err := e.Check(cl, pl.Ends[0], pl.Order, nil)
+		if err != nil {
+			t.Fatalf("%s: %v", c.text, err)
+		}
+		if r.Holds() != c.holds {
+			t.Errorf("%s: holds = %v, want %v", c.text, r.Holds(), c.holds)
+		}
+	}
+}

@@ -175,6 +175,8 @@ func (e *Evaluator) expand(n Node, end conformal.End, hi int) (*Laurent, error) 
 			return nil, errAt(t.At, "%s", noSeriesMsg(t, end))
 		}
 		return e.quantitySeries(t, end, hi)
+	case *HighTemp:
+		return highTempSeries(t, end, hi, prec)
 	case *Unary:
 		x, err := e.expand(t.X, end, hi)
 		if err != nil {

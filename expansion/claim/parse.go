@@ -40,7 +40,7 @@ var variables = []string{"q", "eps", "x"}
 
 // vocabulary is the list of names for unknown-name messages.
 func vocabulary() string {
-	return "known quantities: " + expansion.KnownNames() +
+	return "known quantities: " + expansion.KnownNames() + "; " + highTempNames +
 		"; variables: q, eps, x; constant: pi; functions: " + strings.Join(functions, ", ") + ", zeta(n), O(...)"
 }
 
@@ -277,6 +277,9 @@ func (p *parser) name(t token) (Node, error) {
 		if t.text == f {
 			return nil, errAt(t.col, "%s needs its argument in parentheses: %s(...)", f, f)
 		}
+	}
+	if ht, ok, err := parseHighTemp(t); ok {
+		return ht, err
 	}
 	prov, n, err := expansion.ParseName(t.text)
 	if err != nil {

@@ -140,6 +140,13 @@ func (e *Evaluator) value(n Node, q *big.Float, note func(name, text string)) (*
 		}
 		x := new(big.Float).SetPrec(prec).Quo(big.NewFloat(2), q)
 		return roundOff(one.Sub(one, x), true), nil
+	case *HighTemp:
+		v, err := highTempAt(t, q, prec)
+		if err != nil {
+			return nil, err
+		}
+		note(t.Text, fmt.Sprintf("%s at q = %s: %s", t.Text, q.Text('g', 10), v.method))
+		return v, nil
 	case *Quantity:
 		v, err := e.quantityAt(t, q)
 		if err != nil {

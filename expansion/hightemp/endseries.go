@@ -21,8 +21,9 @@ const (
 // s holds. Each carries the error of truncating that sum in t: twice the
 // geometric tail |T_K| rho/(1 - rho), rho the largest ratio |T_k/T_(k-1)|
 // of the last three terms; where the terms do not fall it is not estimated.
-// The same coefficients are also Pade-resummed in t (series/pade.PadeTable)
-// and the sum with the smaller stated error is returned.
+// The same coefficients are also Pade-resummed in t (series/pade.PadeTable;
+// error stated out to padeReach times the radius of log Z at the end,
+// where every coefficient's series in t is singular) and the sum with the smaller stated error is returned.
 // These are the numbers the finite-beta series of package energy compute by
 // solving on grids: here they come from exact coefficients.
 func (s *Symbolic) EndSeries(variable string, beta *big.Float, maxPower int, prec uint) ([]Sum, error) {
@@ -60,6 +61,26 @@ func (s *Symbolic) EndSeries(variable string, beta *big.Float, maxPower int, pre
 			terms[m][k].Mul(coef[m][k], tk)
 		}
 	}
+	// Every coefficient of var^m is singular where log Z is at the end
+	// itself (its derivatives in q there): t_c of q = 2 (eps^0 part) or of
+	// q = infinity (the 1/q^2 part).
+	ref := 0
+	if variable == VarX {
+		ref = 2
+	}
+	rs := make([]*big.Rat, K+1)
+	rs[0] = new(big.Rat)
+	for k := 1; k <= K; k++ {
+		cs := s.A[k].C
+		if variable == VarEps {
+			cs = s.A[k].InEps()
+		}
+		rs[k] = new(big.Rat)
+		if ref < len(cs) {
+			rs[k].Set(cs[ref])
+		}
+	}
+	endRadius := Radius(rs, prec)
 	out := make([]Sum, maxPower+1)
 	for m := range out {
 		sum := new(big.Float).SetPrec(prec)
@@ -97,6 +118,7 @@ func (s *Symbolic) EndSeries(variable string, beta *big.Float, maxPower int, pre
 			return nil, err
 		}
 		pd := padeSum(ser, t, big.NewFloat(1).SetPrec(prec), prec)
+		limitPadeError(&pd, t, endRadius)
 		summed := Summed{Partial: partial, Pade: pd}
 		out[m] = summed.Best()
 	}
@@ -135,8 +157,11 @@ func geometricTail(terms []*big.Float, prec uint) (*big.Float, string) {
 			rho = r
 		}
 	}
+	if rho.Cmp(big.NewFloat(1)) >= 0 {
+		return nil, fmt.Sprintf("not estimated: the last terms grow (ratio %s): beta^2 is beyond the radius of the series in t", rho.Text('g', 3))
+	}
 	if rho.Cmp(big.NewFloat(0.9)) >= 0 {
-		return nil, fmt.Sprintf("not estimated: the last terms fall by a factor %s only", rho.Text('g', 3))
+		return nil, fmt.Sprintf("not estimated: the last terms fall by a factor %s only", new(big.Float).Quo(big.NewFloat(1), rho).Text('g', 3))
 	}
 	tail := new(big.Float).SetPrec(prec).Quo(rho, new(big.Float).SetPrec(prec).Sub(big.NewFloat(1), rho))
 	tail.Mul(tail, last)
