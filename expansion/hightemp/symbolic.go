@@ -3,7 +3,9 @@ package hightemp
 import (
 	"fmt"
 	"math/big"
+	"runtime"
 	"strings"
+	"sync"
 )
 
 // InvQPoly is a polynomial in u = 1/q with rational coefficients:
@@ -108,12 +110,33 @@ func SymbolicLogZ(order int, progress func(done, total int)) (*Symbolic, error) 
 	nodes := interpolationNodes(order + extraNodes)
 	b := newBasis(2 * order)
 	at := make([]*Coefficients, len(nodes))
-	for i, q := range nodes {
-		at[i] = solve(q, order, b)
-		if progress != nil {
-			progress(i+1, len(nodes))
-		}
+	// The solves are independent (b is only read): one worker per CPU.
+	jobs := make(chan int)
+	var wg sync.WaitGroup
+	var mu sync.Mutex
+	done := 0
+	for range runtime.GOMAXPROCS(0) {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range jobs {
+				c := solve(nodes[i], order, b)
+				mu.Lock()
+				at[i] = c
+				done++
+				if progress != nil {
+					progress(done, len(nodes))
+				}
+				mu.Unlock()
+			}
+		}()
 	}
+	// largest |q| first: those solves take longest
+	for i := len(nodes) - 1; i >= 0; i-- {
+		jobs <- i
+	}
+	close(jobs)
+	wg.Wait()
 	out := &Symbolic{A: make([]InvQPoly, order+1), Nodes: nodes}
 	for k := 1; k <= order; k++ {
 		// y_i = q_i^(k+1) a_k(q_i), a polynomial of degree <= k-1 in q.
