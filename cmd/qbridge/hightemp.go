@@ -137,7 +137,11 @@ func hightempOutput(res *expansion.HighTempResult, req expansion.HighTempRequest
 		unit = "J"
 	}
 	name := res.Kind.String()
-	out.Notes = append(out.Notes, name+": "+res.Doc+" (beta in units 1/"+unit+")", "method: "+res.Method)
+	scale := " (beta in units 1/" + unit + ")"
+	if res.Kind == hightemp.Cumulants || res.Kind == hightemp.Moments {
+		scale = " (in units " + unit + "^(2k))"
+	}
+	out.Notes = append(out.Notes, name+": "+res.Doc+scale, "method: "+res.Method)
 	if res.Symbolic != nil {
 		tab := Table{
 			Title:  fmt.Sprintf("exact high-temperature series of %s, coefficients as polynomials in 1/q (units %s = 1)", name, unit),
