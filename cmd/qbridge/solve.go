@@ -65,6 +65,15 @@ func fmtErr64(x float64) string {
 	return strconv.FormatFloat(math.Abs(x), 'e', 1, 64)
 }
 
+// fmtResidual prints a reached residual; 0 means the iteration reproduced
+// itself to the last bit (it is a measured value, not an error estimate).
+func fmtResidual(x float64) string {
+	if x == 0 {
+		return "0, a fixed point to the last bit"
+	}
+	return fmtErr64(x)
+}
+
 // checkSolveInput rejects bad flags with a one-line usage error.
 func checkSolveInput(q, beta float64, points int, tol float64, out string, outGiven bool) error {
 	switch {
@@ -149,7 +158,7 @@ func solveOutput(sol *numeric.Solution, beta float64) *Output {
 		"S": fmtFloat(sol.S, d), "S_err": fmtErr64(sol.SErr),
 		"grids":      grids,
 		"iterations": sol.Iterations,
-		"residual":   fmtErr64(fine.Residual),
+		"residual":   strconv.FormatFloat(fine.Residual, 'e', 1, 64),
 		"tol":        fmtErr64(sol.Tol),
 		"units":      unitsStatement(),
 	}
@@ -169,7 +178,7 @@ func solveOutput(sol *numeric.Solution, beta float64) *Output {
 	}
 	notes := []string{
 		fmt.Sprintf("large-N SD equations at q = %s, %s = %s (beta*script-J = %s), %s", fmtG(sol.Q), bname, fmtG(beta), fmtG(sol.Beta), unitsNote()),
-		fmt.Sprintf("sine-transform solver, tails 1/w and 1/w^3 subtracted analytically, Anderson-accelerated iteration to residual %s (reached %s, %d iterations in all)", fmtErr64(sol.Tol), fmtErr64(fine.Residual), sol.Iterations),
+		fmt.Sprintf("sine-transform solver, tails 1/w and 1/w^3 subtracted analytically, Anderson-accelerated iteration to residual %s (reached %s, %d iterations in all)", fmtErr64(sol.Tol), fmtResidual(fine.Residual), sol.Iterations),
 		fmt.Sprintf("grids of %v points on [0, beta), Richardson extrapolation in h^4, h^6; error = size of the last correction + tolerance effect", grids),
 	}
 	if sol.Checked {
