@@ -88,5 +88,30 @@ func TestSumAgreesWithDirectSolver(t *testing.T) {
 		if d := math.Abs(ev - sol.E); d > 1e-9 {
 			t.Errorf("beta=%g: energy series %.12g vs direct %.12g", beta, ev, sol.E)
 		}
+		ent, err := Evaluate(Entropy, c, big.NewFloat(beta), 200)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if sv, _ := ent.Best().Value.Float64(); math.Abs(sv-sol.S) > 1e-9 {
+			t.Errorf("beta=%g: entropy series %.12g vs direct %.12g", beta, sv, sol.S)
+		}
+		// C = -beta^2 dE/dbeta, by a central difference of the direct solver's E
+		const h = 1e-3
+		var es [2]float64
+		for i, b := range []float64{beta - h, beta + h} {
+			s2, err := numeric.Solve(numeric.Params{Q: 4, Beta: b, SkipCheck: true})
+			if err != nil {
+				t.Fatal(err)
+			}
+			es[i] = s2.E
+		}
+		heatDirect := -beta * beta * (es[1] - es[0]) / (2 * h)
+		ht, err := Evaluate(Heat, c, big.NewFloat(beta), 200)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if hv, _ := ht.Best().Value.Float64(); math.Abs(hv-heatDirect) > 1e-6 {
+			t.Errorf("beta=%g: heat series %.10g vs direct difference quotient %.10g", beta, hv, heatDirect)
+		}
 	}
 }
