@@ -6,12 +6,11 @@ import (
 	"sync"
 
 	"qbridge/expansion/hightemp"
-	"qbridge/series/scalar"
 )
 
 // HalfLog2 is (1/2) log 2, the constant term of log Z/N and S/N, in prec bits.
 func HalfLog2(prec uint) *big.Float {
-	return new(big.Float).SetPrec(prec).Quo(scalar.Ln2(prec), big.NewFloat(2))
+	return hightemp.HalfLog2(prec)
 }
 
 // HighTempRequest asks for the exact high-temperature series of one

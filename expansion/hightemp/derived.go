@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math/big"
 	"strings"
+
+	"qbridge/series/scalar"
 )
 
 // Kind is a quantity that follows from the coefficients of log Z.
@@ -78,6 +80,11 @@ type SymTerm struct {
 	Value InvQPoly
 	// HalfLog2 marks the constant (1/2) log 2.
 	HalfLog2 bool
+}
+
+// HalfLog2 is (1/2) log 2, the constant term of log Z/N and S/N, in prec bits.
+func HalfLog2(prec uint) *big.Float {
+	return new(big.Float).SetPrec(prec).Quo(scalar.Ln2(prec), big.NewFloat(2))
 }
 
 // linearFactor is the factor that maps a_k to the coefficient of a linear

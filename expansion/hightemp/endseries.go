@@ -5,7 +5,6 @@ import (
 	"math/big"
 
 	"qbridge/series"
-	"qbridge/series/scalar"
 )
 
 // Ends of the q axis for EndSeries: the variables of the eps and 1/q series.
@@ -85,7 +84,7 @@ func (s *Symbolic) EndSeries(variable string, beta *big.Float, maxPower int, pre
 	for m := range out {
 		sum := new(big.Float).SetPrec(prec)
 		if m == 0 {
-			sum.Quo(scalar.Ln2(prec), big.NewFloat(2))
+			sum.Set(HalfLog2(prec))
 		}
 		for k := K; k >= 1; k-- {
 			sum.Add(sum, terms[m][k])
@@ -107,7 +106,7 @@ func (s *Symbolic) EndSeries(variable string, beta *big.Float, maxPower int, pre
 		for k := range cs {
 			cs[k] = new(big.Float).SetPrec(prec)
 			if k == 0 && m == 0 {
-				cs[0].Quo(scalar.Ln2(prec), big.NewFloat(2))
+				cs[0].Set(HalfLog2(prec))
 			}
 			if k > 0 {
 				cs[k].Set(coef[m][k])

@@ -6,7 +6,6 @@ import (
 
 	"qbridge/series"
 	"qbridge/series/pade"
-	"qbridge/series/scalar"
 )
 
 // Sum is a high-temperature quantity summed at one beta.
@@ -73,7 +72,7 @@ func Evaluate(kind Kind, c *Coefficients, beta *big.Float, prec uint) (*Summed, 
 			k = (term.Power - 1) / 2
 		}
 		if term.HalfLog2 {
-			f[k].Quo(scalar.Ln2(prec), big.NewFloat(2))
+			f[k].Set(HalfLog2(prec))
 			continue
 		}
 		f[k].SetRat(term.Value)
