@@ -3,8 +3,6 @@ package hightemp
 import (
 	"fmt"
 	"math/big"
-
-	"qbridge/series"
 )
 
 // Ends of the q axis for EndSeries: the variables of the eps and 1/q series.
@@ -39,13 +37,13 @@ func (s *Symbolic) EndSeries(variable string, beta *big.Float, maxPower int, pre
 	t := new(big.Float).SetPrec(prec).Mul(beta, beta)
 	// terms[m][k] = [var^m] a_k t^k
 	terms := make([][]*big.Float, maxPower+1)
-	coef := make([][]*big.Float, maxPower+1) // [var^m] a_k
+	coef := make([][]*big.Rat, maxPower+1) // [var^m] a_k
 	for m := range terms {
 		terms[m] = make([]*big.Float, K+1)
-		coef[m] = make([]*big.Float, K+1)
+		coef[m] = make([]*big.Rat, K+1)
 		for k := range terms[m] {
 			terms[m][k] = new(big.Float).SetPrec(prec)
-			coef[m][k] = new(big.Float).SetPrec(prec)
+			coef[m][k] = new(big.Rat)
 		}
 	}
 	tk := big.NewFloat(1).SetPrec(prec)
@@ -56,8 +54,9 @@ func (s *Symbolic) EndSeries(variable string, beta *big.Float, maxPower int, pre
 			cs = s.A[k].InEps()
 		}
 		for m := 0; m <= maxPower && m < len(cs); m++ {
-			coef[m][k].SetRat(cs[m])
-			terms[m][k].Mul(coef[m][k], tk)
+			coef[m][k].Set(cs[m])
+			terms[m][k].SetRat(cs[m])
+			terms[m][k].Mul(terms[m][k], tk)
 		}
 	}
 	// Every coefficient of var^m is singular where log Z is at the end
@@ -102,21 +101,20 @@ func (s *Symbolic) EndSeries(variable string, beta *big.Float, maxPower int, pre
 			continue
 		}
 		// the same coefficients as a series in t, Pade-resummed at t = beta^2
-		cs := make([]*big.Float, K+1)
-		for k := range cs {
-			cs[k] = new(big.Float).SetPrec(prec)
-			if k == 0 && m == 0 {
-				cs[0].Set(HalfLog2(prec))
+		coefs := func(p uint) []*big.Float {
+			cs := make([]*big.Float, K+1)
+			for k := range cs {
+				cs[k] = new(big.Float).SetPrec(p)
+				if k == 0 && m == 0 {
+					cs[0].Set(HalfLog2(p))
+				}
+				if k > 0 {
+					cs[k].SetRat(coef[m][k])
+				}
 			}
-			if k > 0 {
-				cs[k].Set(coef[m][k])
-			}
+			return cs
 		}
-		ser, err := series.FromBig(prec, cs)
-		if err != nil {
-			return nil, err
-		}
-		pd := padeSum(ser, t, big.NewFloat(1).SetPrec(prec), prec)
+		pd := padeSum(coefs, beta, big.NewFloat(1).SetPrec(prec), prec)
 		limitPadeError(&pd, t, endRadius)
 		summed := Summed{Partial: partial, Pade: pd}
 		out[m] = summed.Best()

@@ -60,25 +60,31 @@ func Evaluate(kind Kind, c *Coefficients, beta *big.Float, prec uint) (*Summed, 
 		return nil, fmt.Errorf("%w: beta must be positive and finite", ErrInput)
 	}
 	K := c.Order()
-	// f_k in t, k = 0..K (for the energy f_k multiplies beta t^(k-1))
-	f := make([]*big.Float, K+1)
-	for i := range f {
-		f[i] = new(big.Float).SetPrec(prec)
-	}
 	odd := kind == Energy
-	for _, term := range Derive(kind, c) {
-		k := term.Power / 2
+	terms := Derive(kind, c)
+	// coefs returns f_k in t at precision p (for the energy f_k multiplies
+	// beta t^k, k = 0..K-1). They are exact rationals, so any precision
+	// can be had.
+	coefs := func(p uint) []*big.Float {
+		f := make([]*big.Float, K+1)
+		for i := range f {
+			f[i] = new(big.Float).SetPrec(p)
+		}
+		for _, term := range terms {
+			k := term.Power / 2
+			if odd {
+				k = (term.Power - 1) / 2
+			}
+			if term.HalfLog2 {
+				f[k].Set(HalfLog2(p))
+				continue
+			}
+			f[k].SetRat(term.Value)
+		}
 		if odd {
-			k = (term.Power - 1) / 2
+			f = f[:K]
 		}
-		if term.HalfLog2 {
-			f[k].Set(HalfLog2(prec))
-			continue
-		}
-		f[k].SetRat(term.Value)
-	}
-	if odd {
-		f = f[:K] // E = beta sum_{k=0}^{K-1} f_k t^k
+		return f
 	}
 	t := new(big.Float).SetPrec(prec).Mul(beta, beta)
 	out := &Summed{Radius: Radius(c.A, prec)}
@@ -86,12 +92,8 @@ func Evaluate(kind Kind, c *Coefficients, beta *big.Float, prec uint) (*Summed, 
 	if odd {
 		pre.Set(beta)
 	}
-	out.Partial = partialSum(f, t, pre, out.Radius, prec)
-	s, err := series.FromBig(prec, f)
-	if err != nil {
-		return nil, err
-	}
-	out.Pade = padeSum(s, t, pre, prec)
+	out.Partial = partialSum(coefs(prec), t, pre, out.Radius, prec)
+	out.Pade = padeSum(coefs, beta, pre, prec)
 	limitPadeError(&out.Pade, t, out.Radius)
 	return out, nil
 }
@@ -134,12 +136,30 @@ func partialSum(f []*big.Float, t, pre *big.Float, r RadiusEstimate, prec uint) 
 	return out
 }
 
-func padeSum(s *series.Series, t, pre *big.Float, prec uint) Sum {
+// padeGuard is the working precision the Pade table gets beyond the
+// requested one, per coefficient: the Hankel systems lose about a bit per
+// order (at order 60 and 84 bits the value lost 47 bits), so the table
+// runs at prec + padeGuard*len + 32 bits and the selected entry is
+// rebuilt 64 bits higher still; the change is the rounding error.
+const padeGuard = 2
+
+func padeSum(coefs func(p uint) []*big.Float, beta, pre *big.Float, prec uint) Sum {
+	f := coefs(prec)
+	wp := prec + padeGuard*uint(len(f)) + 32
+	t := new(big.Float).SetPrec(wp).Mul(beta, beta)
+	s, err := series.FromBig(wp, coefs(wp))
+	if err != nil {
+		return Sum{Reason: "Pade table not built: " + err.Error()}
+	}
 	r, err := pade.PadeTable(s, t, pade.PadeTableOptions{})
 	if err != nil {
-		return Sum{Reason: "Pade table failed: " + err.Error()}
+		return Sum{Reason: "no Pade entry in t is free of poles between 0 and beta^2 (" + err.Error() + ")"}
 	}
 	e := new(big.Float).SetPrec(prec).Set(r.Err)
+	spread := "the spread of the highest admissible entry and the next"
+	if r.Used > 2 {
+		spread = fmt.Sprintf("the spread of the %d highest admissible entries", r.Used)
+	}
 	// The spread of neighbouring entries can understate far outside the
 	// radius; the table four orders lower must agree within the error too.
 	lower := ""
@@ -154,9 +174,24 @@ func padeSum(s *series.Series, t, pre *big.Float, prec uint) Sum {
 			}
 		}
 	}
+	// rounding: the same entry 64 bits higher
+	rounding := ""
+	if hi, err := series.FromBig(wp+64, coefs(wp+64)); err == nil {
+		if p, err := pade.NewPade(hi, r.L, r.M); err == nil {
+			if v, err := p.Eval(new(big.Float).SetPrec(wp+64).Mul(beta, beta)); err == nil {
+				d := new(big.Float).SetPrec(prec).Sub(v, r.Value)
+				e.Add(e, d.Abs(d))
+				rounding = fmt.Sprintf(", plus the rounding error (the entry rebuilt at %d bits against %d)", wp+64, wp)
+			}
+		}
+	}
 	v := new(big.Float).SetPrec(prec).Mul(r.Value, pre)
 	e.Mul(e, new(big.Float).Abs(pre))
-	return Sum{Value: v, Err: e, Method: fmt.Sprintf("Pade [%d/%d] in t = beta^2 of the exact coefficients; error the larger of the spread of the %d highest admissible entries%s", r.L, r.M, r.Used, lower)}
+	// the value is returned in prec bits
+	if floor := new(big.Float).SetMantExp(new(big.Float).Abs(v), -int(prec)+8); e.Cmp(floor) < 0 {
+		e = floor
+	}
+	return Sum{Value: v, Err: e, Method: fmt.Sprintf("Pade [%d/%d] in t = beta^2 of the exact coefficients at %d bits; error the larger of %s%s%s", r.L, r.M, wp, spread, lower, rounding)}
 }
 
 // padeReach is how far beyond the nearest singularity, in units of |t_c|,
