@@ -3,6 +3,7 @@ package expansion
 import (
 	"fmt"
 	"math/big"
+	"strings"
 	"sync"
 
 	"qbridge/expansion/hightemp"
@@ -28,8 +29,10 @@ type HighTempRequest struct {
 	// the request's units: beta J for UnitsJ); it needs Qs.
 	Beta *big.Float
 	// Units of energy. UnitsJ turns the coefficient of (beta script-J)^p into
-	// that of (beta J)^p, a factor (q/2^(q-1))^(p/2), rational only for even
-	// p and integer q: otherwise it is refused.
+	// that of (beta J)^p, a factor r^p with r^2 = q/2^(q-1) (r^(p+1) for the
+	// energy, which is itself an energy; r^(2k) for kappa_2k and mu_2k).
+	// The powers are even, so the factor is rational for integer q (up to
+	// MaxExactJQ); other q are refused in J units.
 	Units Units
 	// Prec is the working precision in bits of the sums and the radius.
 	Prec uint
@@ -45,6 +48,10 @@ type HighTempAtQ struct {
 	Terms []hightemp.Term
 	// Radius is the nearest singularity of log Z in t = (beta script-J)^2.
 	Radius hightemp.RadiusEstimate
+	// BetaMax and BetaMaxErr are the radius as a largest beta, in the
+	// request's units (beta J for UnitsJ); nil where the radius is not
+	// estimated.
+	BetaMax, BetaMaxErr *big.Float
 	// Sum is the quantity summed at the requested beta (nil without one).
 	Sum *hightemp.Summed
 }
@@ -91,7 +98,7 @@ func HighTemp(r HighTempRequest) (*HighTempResult, error) {
 		return nil, fmt.Errorf("%w: %v", ErrInput, err)
 	}
 	if r.Order < 1 || r.Order > hightemp.MaxOrder {
-		return nil, fmt.Errorf("%w: --order must be between 1 and %d (got %d)", ErrInput, hightemp.MaxOrder, r.Order)
+		return nil, fmt.Errorf("%w: the order must be between 1 and %d (got %d)", ErrInput, hightemp.MaxOrder, r.Order)
 	}
 	if r.Prec == 0 {
 		r.Prec = 256
@@ -109,10 +116,10 @@ func HighTemp(r HighTempRequest) (*HighTempResult, error) {
 	}
 	if len(r.Qs) == 0 {
 		if r.Beta != nil {
-			return nil, fmt.Errorf("%w: --beta sums the series at one q: give --q", ErrInput)
+			return nil, fmt.Errorf("%w: a sum at beta needs values of q", ErrInput)
 		}
 		if r.Units == UnitsJ {
-			return nil, fmt.Errorf("%w: in J units the coefficients carry (q/2^(q-1))^k, not a rational function of q: give --q or use --units script-J", ErrInput)
+			return nil, fmt.Errorf("%w: in J units the coefficients carry (q/2^(q-1))^k, not a rational function of q: ask at given integer q, or in script-J units", ErrInput)
 		}
 		s, err := SymbolicHighTemp(r.Order, func(done, total int) {
 			report(float64(done)/float64(total), fmt.Sprintf("exact solve %d of %d", done, total))
@@ -126,7 +133,7 @@ func HighTemp(r HighTempRequest) (*HighTempResult, error) {
 		return out, nil
 	}
 	if r.Beta != nil && !hightemp.Summable(kind) {
-		return nil, fmt.Errorf("%w: --beta applies to logz, energy, entropy and heat; %s is a set of numbers", ErrInput, kind)
+		return nil, fmt.Errorf("%w: sums at beta exist for logz, energy, entropy and heat; %s is a set of numbers", ErrInput, kind)
 	}
 	for i, q := range r.Qs {
 		report(float64(i)/float64(len(r.Qs)), "q = "+q.RatString())
@@ -135,20 +142,43 @@ func HighTemp(r HighTempRequest) (*HighTempResult, error) {
 			return nil, inputErr(err)
 		}
 		at := HighTempAtQ{Q: q, Terms: hightemp.Derive(kind, c), Radius: hightemp.Radius(c.A, r.Prec)}
+		at.BetaMax, at.BetaMaxErr = at.Radius.Beta, at.Radius.BetaErr
+		// rj = script-J/J, by which beta script-J = beta J rj
+		var rj *big.Float
 		if r.Units == UnitsJ {
 			if err := termsToJ(kind, q, at.Terms); err != nil {
 				return nil, err
 			}
+			if rj, err = JRatioBig(q, r.Prec); err != nil {
+				return nil, err
+			}
+			if at.BetaMax != nil {
+				at.BetaMax = new(big.Float).SetPrec(r.Prec).Quo(at.BetaMax, rj)
+				at.BetaMaxErr = new(big.Float).SetPrec(r.Prec).Quo(at.BetaMaxErr, rj)
+			}
 		}
 		if r.Beta != nil {
 			b := new(big.Float).SetPrec(r.Prec).Set(r.Beta)
-			if r.Units == UnitsJ {
-				qf, _ := q.Float64()
-				b.Mul(b, new(big.Float).SetFloat64(JRatio(qf)))
+			if rj != nil {
+				b.Mul(b, rj)
 			}
 			s, err := hightemp.Evaluate(kind, c, b, r.Prec)
 			if err != nil {
 				return nil, inputErr(err)
+			}
+			if rj != nil && kind == hightemp.Energy {
+				// E/J = (E/script-J) rj; the relative error of rj is 2^-prec
+				for _, sum := range []*hightemp.Sum{&s.Partial, &s.Pade} {
+					if sum.Value == nil {
+						continue
+					}
+					sum.Value.Mul(sum.Value, rj)
+					if sum.Err != nil {
+						sum.Err.Mul(sum.Err, rj)
+						ulp := new(big.Float).SetMantExp(new(big.Float).Abs(sum.Value), -int(r.Prec)+4)
+						sum.Err.Add(sum.Err, ulp)
+					}
+				}
 			}
 			at.Sum = s
 		}
@@ -159,23 +189,24 @@ func HighTemp(r HighTempRequest) (*HighTempResult, error) {
 	return out, nil
 }
 
-// termsToJ turns coefficients of (beta script-J)^p (or kappa in units
-// script-J^p) into units J: times r^p, r^2 = q/2^(q-1).
+// termsToJ turns coefficients of (beta script-J)^p (or kappa_p in units
+// script-J^p) into units J: times r^p, r^2 = q/2^(q-1), and r^(p+1) for
+// the energy (E/J = (E/script-J) r). Every such power is even.
 func termsToJ(kind hightemp.Kind, q *big.Rat, terms []hightemp.Term) error {
-	if !q.IsInt() || q.Num().BitLen() > 16 {
-		return fmt.Errorf("%w: in J units the coefficients carry (q/2^(q-1))^(p/2), rational only for integer q: q = %s; use --units script-J", ErrInput, q.RatString())
+	r2, err := JRatioSquared(q)
+	if err != nil {
+		return err
 	}
-	if kind == hightemp.Energy {
-		return fmt.Errorf("%w: the energy's coefficients in J units carry odd powers of sqrt(q/2^(q-1)), which are not rational: use --units script-J (E/J = (E/script-J) sqrt(q/2^(q-1)))", ErrInput)
-	}
-	qi := q.Num().Int64()
-	r2 := new(big.Rat).SetFrac(big.NewInt(qi), new(big.Int).Lsh(big.NewInt(1), uint(qi-1)))
 	for i := range terms {
 		if terms[i].HalfLog2 || terms[i].Power == 0 {
 			continue
 		}
+		n := terms[i].Power / 2
+		if kind == hightemp.Energy {
+			n = (terms[i].Power + 1) / 2
+		}
 		f := big.NewRat(1, 1)
-		for range terms[i].Power / 2 {
+		for range n {
 			f.Mul(f, r2)
 		}
 		terms[i].Value = new(big.Rat).Mul(terms[i].Value, f)
@@ -185,14 +216,11 @@ func termsToJ(kind hightemp.Kind, q *big.Rat, terms []hightemp.Term) error {
 
 func nodeList(qs []*big.Rat) string {
 	if len(qs) <= 6 {
-		s := ""
+		s := make([]string, len(qs))
 		for i, q := range qs {
-			if i > 0 {
-				s += ", "
-			}
-			s += q.RatString()
+			s[i] = q.RatString()
 		}
-		return s
+		return strings.Join(s, ", ")
 	}
 	return fmt.Sprintf("%s, %s, ..., %s", qs[0].RatString(), qs[1].RatString(), qs[len(qs)-1].RatString())
 }

@@ -361,3 +361,55 @@ func ConvertTable(res *TableResult, u Units) {
 	}
 	res.Notes = append(res.Notes, "J units: E_0 and E times r = sqrt(q/2^(q-1)), alpha_S, alpha_G and alpha_K divided by r, at each q (beta J given: beta script-J = r beta J)")
 }
+
+// MaxExactJQ is the largest integer q for which coefficients are converted
+// to J units exactly: r^2 = q/2^(q-1) has a (q-1)-bit denominator, and the
+// coefficient of (beta J)^p carries r^p, so at q = 4096 and p = 120 the
+// denominators reach 2.5e5 bits.
+const MaxExactJQ = 4096
+
+// JRatioSquared returns r^2 = (script-J/J)^2 = q/2^(q-1) exactly for an
+// integer q with 2 <= q <= MaxExactJQ; otherwise it returns an error that
+// says why there is no rational value.
+func JRatioSquared(q *big.Rat) (*big.Rat, error) {
+	if q == nil || q.Cmp(big.NewRat(2, 1)) < 0 {
+		return nil, fmt.Errorf("%w: q must be at least 2", ErrInput)
+	}
+	if !q.IsInt() {
+		return nil, fmt.Errorf("%w: at q = %s the J-unit factor q/2^(q-1) is irrational (2 to a fractional power), so exact coefficients in J units exist only for integer q", ErrInput, q.RatString())
+	}
+	if q.Num().Cmp(big.NewInt(MaxExactJQ)) > 0 {
+		return nil, fmt.Errorf("%w: at q = %s the J-unit factor q/2^(q-1) is rational but its powers have denominators of about (q-1) p/2 bits; exact J-unit coefficients are offered up to q = %d", ErrInput, q.RatString(), MaxExactJQ)
+	}
+	n := q.Num().Int64()
+	return new(big.Rat).SetFrac(big.NewInt(n), new(big.Int).Lsh(big.NewInt(1), uint(n-1))), nil
+}
+
+// JRatioBig returns r(q) = script-J/J = sqrt(q/2^(q-1)) in prec bits for
+// a rational q >= 2, as exp((1/2) log q - ((q-1)/2) log 2) at prec + 64
+// bits: unlike JRatio it neither loses digits beyond float64 nor
+// underflows (it stays in range up to q of about 3e9).
+func JRatioBig(q *big.Rat, prec uint) (*big.Float, error) {
+	if q == nil || q.Cmp(big.NewRat(2, 1)) < 0 {
+		return nil, fmt.Errorf("%w: q must be at least 2", ErrInput)
+	}
+	// (q-1) log 2 needs as many more bits as q has before the point
+	wp := prec + 64 + uint(q.Num().BitLen())
+	qf := new(big.Float).SetPrec(wp).SetRat(q)
+	lq, err := scalar.BigLog(qf, wp)
+	if err != nil {
+		return nil, err
+	}
+	x := new(big.Float).SetPrec(wp).Sub(qf, big.NewFloat(1))
+	x.Mul(x, scalar.Ln2(wp))
+	x.Sub(lq, x)
+	x.Quo(x, big.NewFloat(2))
+	r, err := scalar.CheckedExp(x, wp)
+	if err != nil {
+		return nil, fmt.Errorf("%w: r(q) = sqrt(q/2^(q-1)) at q = %s: %v", ErrInput, q.RatString(), err)
+	}
+	if r.Sign() == 0 {
+		return nil, fmt.Errorf("%w: r(q) = sqrt(q/2^(q-1)) at q = %s is below big.Float's range", ErrInput, q.RatString())
+	}
+	return r.SetPrec(prec), nil
+}

@@ -102,8 +102,10 @@ func TestBadInputTable(t *testing.T) {
 		{[]string{"hightemp", "logz", "--q", "4", "--beta", "-1"}, "expected a positive number"},
 		{[]string{"hightemp", "cumulants", "--q", "4", "--beta", "1"}, "--beta applies to logz"},
 		{[]string{"hightemp", "logz", "--units", "J"}, "give --q or use --units script-J"},
-		{[]string{"hightemp", "logz", "--q", "9/2", "--units", "J"}, "rational only for integer q"},
-		{[]string{"hightemp", "energy", "--q", "4", "--units", "J"}, "not rational"},
+		{[]string{"hightemp", "logz", "--q", "9/2", "--units", "J"}, "exist only for integer q"},
+		{[]string{"hightemp", "logz", "--q", "70000", "--units", "J"}, "offered up to q = 4096"},
+		{[]string{"hightemp", "logz", "--q", "0x10"}, `--q "0x10": expected numbers or fractions`},
+		{[]string{"exact", "h_1", "--q", "0x10"}, `cannot read q = "0x10"`},
 	}
 	if len(cases) < 40 {
 		t.Fatalf("only %d cases", len(cases))

@@ -9,6 +9,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"qbridge/expansion"
+	"qbridge/expansion/conformal"
 	"qbridge/expansion/hightemp"
 )
 
@@ -30,8 +31,10 @@ QUANTITY is one of
   heat       specific heat C/N = beta^2 d^2(log Z/N)/d beta^2
   cumulants  kappa_2k/N = (2k)! a_k, the cumulants of the many-body spectral
              density per fermion (odd ones vanish), in units script-J^(2k)
-  moments    mu_2k: the moments of the density whose cumulants are
-             kappa_2k/N (mu_2 = kappa_2/N, mu_4 = kappa_4/N + 3 (kappa_2/N)^2, ...)
+  moments    mu_2k = (2k)! [beta^(2k)] (Z/2^(N/2))^(1/N): the formal moments
+             that go with the cumulants kappa_2k/N (mu_2 = kappa_2/N,
+             mu_4 = kappa_4/N + 3 (kappa_2/N)^2, ...). They are not the
+             moments of a positive density: at q = 4, mu_4 < 0.
 Without --q every coefficient is printed as an exact polynomial in 1/q (and
 as one fraction N(q)/(D q^m)): it is exact for every q. With --q (a number,
 a fraction such as 9/2, or a list 3,4,9/2) the coefficients are exact
@@ -72,7 +75,13 @@ and by Pade in t, each with its error.`,
 			if len(req.Qs) == 0 {
 				return usageErr("--beta sums the series at given q: add --q")
 			}
+			if k, _ := hightemp.ParseKind(args[0]); !hightemp.Summable(k) {
+				return usageErr("--beta applies to logz, energy, entropy and heat; %s is a set of numbers", k)
+			}
 			req.Beta = b
+		}
+		if len(req.Qs) == 0 && opts.units == expansion.UnitsJ {
+			return usageErr("in J units the coefficients carry (q/2^(q-1))^k, not a rational function of q: give --q or use --units script-J (J units need integer q)")
 		}
 		pr := newProgress(cmd, "hightemp")
 		req.Progress = pr.Update
@@ -105,8 +114,9 @@ func parseRationalList(s string) ([]*big.Rat, error) {
 		if strings.EqualFold(f, "inf") {
 			return nil, usageErr("--q inf: the high-temperature coefficients at q = infinity vanish beyond the (1/2) log 2 (the 1/q^2 parts are the large-q formula): drop --q to see every power of 1/q")
 		}
+		num, den, _ := strings.Cut(f, "/")
 		q, ok := new(big.Rat).SetString(f)
-		if !ok || f == "" {
+		if !ok || !conformal.PlainDecimal(num) || (den != "" && !conformal.PlainDecimal(den)) || strings.Count(f, "/") > 1 {
 			return nil, usageErr("--q %q: expected numbers or fractions such as 4, 4.5 or 9/2, separated by commas", f)
 		}
 		if q.Cmp(big.NewRat(2, 1)) < 0 {
@@ -159,10 +169,13 @@ func hightempOutput(res *expansion.HighTempResult, req expansion.HighTempRequest
 				continue
 			}
 			num, den := oneFraction(t.Value)
-			poly, frac := t.Value.String(), "("+num+")/("+den+")"
+			poly, frac := t.Value.String(), fractionText(num, den)
 			if opts.Format == "tex" {
 				poly = "$" + texPoly(t.Value) + "$"
 				frac = `$\frac{` + texProducts(num) + "}{" + texProducts(den) + "}$"
+				if den == "1" {
+					frac = "$" + texProducts(num) + "$"
+				}
 			}
 			tab.Rows = append(tab.Rows, []string{strconv.Itoa(t.Power), poly, frac})
 			var terms []map[string]any
@@ -195,24 +208,22 @@ func hightempOutput(res *expansion.HighTempResult, req expansion.HighTempRequest
 				continue
 			}
 			dec := fmtBig(new(big.Float).SetPrec(req.Prec).SetRat(t.Value), d)
-			tab.Rows = append(tab.Rows, []string{strconv.Itoa(t.Power), t.Value.RatString(), dec})
+			exact := t.Value.RatString()
+			if opts.Format == "tex" {
+				exact = texRat(t.Value)
+			}
+			tab.Rows = append(tab.Rows, []string{strconv.Itoa(t.Power), exact, dec})
 			coefs = append(coefs, map[string]any{"power": t.Power, "numerator": t.Value.Num().String(), "denominator": t.Value.Denom().String(), "value": dec})
 		}
 		out.Tables = append(out.Tables, tab)
 		doc := map[string]any{"quantity": name, "q": qs, "order": req.Order, "coefficients": coefs}
 		rad := at.Radius
 		if rad.T != nil {
-			bmax, bmaxErr := rad.Beta, rad.BetaErr
-			if req.Units == expansion.UnitsJ {
-				qf, _ := at.Q.Float64()
-				r := new(big.Float).SetFloat64(expansion.JRatio(qf))
-				bmax = new(big.Float).Quo(bmax, r)
-				bmaxErr = new(big.Float).Quo(bmaxErr, r)
-			}
+			bmax, bmaxErr := at.BetaMax, at.BetaMaxErr
 			out.Notes = append(out.Notes, fmt.Sprintf("q = %s: nearest singularity of log Z at t = (beta script-J)^2 = %s +- %s, so the series in t converges for beta %s < %s +- %s (%s)",
-				qs, fmtBig(rad.T, 8), fmtErr(rad.TErr), unit, fmtBig(bmax, 8), fmtErr(bmaxErr), rad.Method))
-			doc["singularity_t"], doc["singularity_t_error"] = fmtBig(rad.T, d), fmtErr(rad.TErr)
-			doc["beta_max"], doc["beta_max_error"] = fmtBig(bmax, d), fmtErr(bmaxErr)
+				qs, fmtKnown(rad.T, rad.TErr, d), fmtErr(rad.TErr), unit, fmtKnown(bmax, bmaxErr, d), fmtErr(bmaxErr), rad.Method))
+			doc["singularity_t"], doc["singularity_t_error"] = fmtKnown(rad.T, rad.TErr, d), fmtErr(rad.TErr)
+			doc["beta_max"], doc["beta_max_error"] = fmtKnown(bmax, bmaxErr, d), fmtErr(bmaxErr)
 			doc["singularity_method"] = rad.Method
 		} else {
 			out.Notes = append(out.Notes, fmt.Sprintf("q = %s: radius in t %s", qs, rad.Reason))
@@ -235,13 +246,19 @@ func hightempOutput(res *expansion.HighTempResult, req expansion.HighTempRequest
 					sums = append(sums, map[string]any{"method": m.key, "value": nil, "value_error": nil, "reason": m.s.Reason})
 					continue
 				}
-				st.Rows = append(st.Rows, []string{m.key, fmtValue(m.s.Value, m.s.Err, d), fmtErr(m.s.Err)})
 				detail := m.s.Method
 				if m.s.Err == nil {
 					detail += "; " + m.s.Reason
 				}
 				out.Notes = append(out.Notes, fmt.Sprintf("q = %s, %s: %s", qs, m.key, detail))
-				sums = append(sums, map[string]any{"method": m.key, "value": fmtValue(m.s.Value, m.s.Err, d), "value_error": jsonErr(m.s.Err), "how": detail})
+				if m.s.Diverges {
+					st.Rows = append(st.Rows, []string{m.key, "diverges", notEstimated})
+					sums = append(sums, map[string]any{"method": m.key, "value": nil, "value_error": nil, "diverges": true, "how": detail})
+					continue
+				}
+				v := fmtKnown(m.s.Value, m.s.Err, d)
+				st.Rows = append(st.Rows, []string{m.key, v, fmtErr(m.s.Err)})
+				sums = append(sums, map[string]any{"method": m.key, "value": v, "value_error": jsonErr(m.s.Err), "diverges": false, "how": detail})
 			}
 			out.Tables = append(out.Tables, st)
 			doc["beta"] = req.Beta.Text('g', 17)
@@ -308,6 +325,33 @@ func oneFraction(p hightemp.InvQPoly) (num, den string) {
 		den += "*" + qPower(m)
 	}
 	return strings.Join(parts, " "), den
+}
+
+// fractionText writes num/den with parentheses only where a sum or a
+// product needs them: 1/(2*q^2), (3*q - 1)/(24*q^3), 1.
+func fractionText(num, den string) string {
+	if strings.Contains(num, " ") {
+		num = "(" + num + ")"
+	}
+	if den == "1" {
+		return num
+	}
+	if strings.Contains(den, "*") {
+		den = "(" + den + ")"
+	}
+	return num + "/" + den
+}
+
+// texRat typesets an exact rational.
+func texRat(r *big.Rat) string {
+	if r.IsInt() {
+		return "$" + r.Num().String() + "$"
+	}
+	sign := ""
+	if r.Sign() < 0 {
+		sign = "-"
+	}
+	return "$" + sign + `\frac{` + new(big.Int).Abs(r.Num()).String() + "}{" + r.Denom().String() + "}$"
 }
 
 func qPower(n int) string {

@@ -70,15 +70,25 @@ func TestHightempSumAgreesWithSolve(t *testing.T) {
 	checkErrors(t, "hightemp --beta", "", ht)
 }
 
+// Every format prints the exact coefficients: heat's beta^2 term is
+// 2 a_1 = 1/(2 q^2) (a_1 = 1/(4 q^2), PHYSICS.md sec. 5), and at q = 9/2
+// kappa_2/N = 2! a_1 = 2/81.
 func TestHightempFormats(t *testing.T) {
-	for _, f := range []string{"text", "csv", "tex"} {
-		for _, args := range [][]string{{"hightemp", "heat", "--order", "5"}, {"hightemp", "cumulants", "--order", "9", "--q", "9/2"}} {
-			out, err := runCLI(t, append(args, "--format", f)...)
+	cases := []struct {
+		args []string
+		want map[string]string // format -> text that must appear
+	}{
+		{[]string{"hightemp", "heat", "--order", "5"}, map[string]string{"text": "1/(2*q^2)", "csv": "1/(2*q^2)", "tex": `$\frac{1}{2 q^{2}}$`}},
+		{[]string{"hightemp", "cumulants", "--order", "9", "--q", "9/2"}, map[string]string{"text": "2/81", "csv": "2,2/81,", "tex": `$\frac{2}{81}$`}},
+	}
+	for _, c := range cases {
+		for f, want := range c.want {
+			out, err := runCLI(t, append(c.args, "--format", f)...)
 			if err != nil {
-				t.Fatalf("%v %s: %v", args, f, err)
+				t.Fatalf("%v %s: %v", c.args, f, err)
 			}
-			if !strings.Contains(out, "2") {
-				t.Errorf("%v %s: empty output %q", args, f, out)
+			if !strings.Contains(out, want) {
+				t.Errorf("%v --format %s: no %q in\n%s", c.args, f, want, out)
 			}
 		}
 	}
@@ -87,5 +97,42 @@ func TestHightempFormats(t *testing.T) {
 	c := m["coefficients"].([]any)[0].(map[string]any)
 	if c["numerator"] != "1" || c["denominator"] != "64" {
 		t.Errorf("kappa_2/N in J units at q = 4: %v/%v, want 1/64", c["numerator"], c["denominator"])
+	}
+}
+
+// In J units the energy is E/J = (E/script-J) r at beta script-J =
+// beta J r, r = sqrt(q/2^(q-1)) (PHYSICS.md sec. 1): at q = 4, r = 1/sqrt 2,
+// so E/J at beta J = sqrt 2 is E/script-J at beta script-J = 1 over sqrt 2,
+// to 30 digits; and the beta coefficient is -2 a_1 r^2 = -1/64.
+func TestHightempEnergyInJUnits(t *testing.T) {
+	const sqrt2 = "1.41421356237309504880168872420969807856967187537694"
+	j := runJSON(t, "hightemp", "energy", "--order", "30", "--q", "4", "--units", "J", "--beta", sqrt2, "--digits", "30")
+	s := runJSON(t, "hightemp", "energy", "--order", "30", "--q", "4", "--beta", "1", "--digits", "30")
+	c := j["coefficients"].([]any)[0].(map[string]any)
+	if c["numerator"] != "-1" || c["denominator"] != "64" {
+		t.Errorf("energy_1 in J units at q = 4: %v/%v, want -1/64", c["numerator"], c["denominator"])
+	}
+	pick := func(m map[string]any) (v, e *big.Float) {
+		p := m["sums"].([]any)[1].(map[string]any)
+		v, _, err := big.ParseFloat(p["value"].(string), 10, 200, big.ToNearestEven)
+		if err != nil {
+			t.Fatal(err)
+		}
+		e, _, err = big.ParseFloat(p["value_error"].(string), 10, 200, big.ToNearestEven)
+		if err != nil {
+			t.Fatal(err)
+		}
+		return v, e
+	}
+	vj, ej := pick(j)
+	vs, es := pick(s)
+	r, _, _ := big.ParseFloat(sqrt2, 10, 200, big.ToNearestEven)
+	want := new(big.Float).SetPrec(200).Quo(vs, r)
+	d := new(big.Float).Sub(vj, want)
+	d.Abs(d)
+	bound := new(big.Float).Add(ej, new(big.Float).Quo(es, r))
+	bound.Add(bound, big.NewFloat(1e-29)) // the 30 printed digits
+	if d.Cmp(bound) > 0 || d.Cmp(big.NewFloat(1e-25)) > 0 {
+		t.Errorf("E/J = %s +- %s, E/script-J / sqrt 2 = %s: differ by %.3g", vj.Text('g', 30), ej.Text('e', 2), want.Text('g', 30), d)
 	}
 }

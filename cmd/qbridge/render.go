@@ -461,3 +461,17 @@ func fmtValue(x, err *big.Float, digits int) string {
 	}
 	return fmtBig(x, digits)
 }
+
+// fmtKnown formats x with the significant digits its error supports (two
+// past the first uncertain one, at least two, at most digits); without an
+// error, with digits.
+func fmtKnown(x, err *big.Float, digits int) string {
+	if x == nil {
+		return ""
+	}
+	if err == nil || err.Sign() == 0 || x.Sign() == 0 {
+		return fmtBig(x, digits)
+	}
+	n := x.MantExp(nil) - err.MantExp(nil) // binary orders of magnitude
+	return fmtBig(x, min(max(int(float64(n)*0.30103)+2, 2), digits))
+}

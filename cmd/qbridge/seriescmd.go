@@ -285,7 +285,7 @@ func checkTableWithErrors(ck *expansion.SeriesCheck, end conformal.End) (Table, 
 		}
 		sig = append(sig, s)
 		tab.Rows = append(tab.Rows, []string{strconv.Itoa(k), fmtValue(ck.Fitted[k], ck.FittedErr[k], d), fmtErr(ck.FittedErr[k]),
-			fmtValue(ck.Exact[k], ck.ExactErr[k], d), exErr, s})
+			exactCell(ck.Exact[k], ck.ExactErr[k], d), exErr, s})
 	}
 	return tab, map[string]any{
 		"quantity":     ck.Name,
@@ -308,10 +308,23 @@ func sigmaString(a, b, e *big.Float) string {
 	return fmt.Sprintf("%.2f", s)
 }
 
-func errFreeStrings(xs []*big.Float) []string {
-	out := make([]string, len(xs))
+// exactCell formats a reference value, "-" where there is none (a sum
+// that diverges; the error column says why).
+func exactCell(x, err *big.Float, d int) string {
+	if x == nil {
+		return "-"
+	}
+	return fmtValue(x, err, d)
+}
+
+// errFreeStrings formats values without an error column; a missing value
+// is null.
+func errFreeStrings(xs []*big.Float) []any {
+	out := make([]any, len(xs))
 	for i, x := range xs {
-		out[i] = fmtBig(x, opts.Digits)
+		if x != nil {
+			out[i] = fmtBig(x, opts.Digits)
+		}
 	}
 	return out
 }

@@ -44,13 +44,18 @@ func parseHighTemp(t token) (*HighTemp, bool, error) {
 	if m == nil {
 		return nil, false, nil
 	}
-	p, err := strconv.Atoi(m[2])
-	if err != nil || p > 2*hightemp.MaxOrder {
-		return nil, true, errAt(t.col, "%s: the index must be at most %d", t.text, 2*hightemp.MaxOrder)
+	k, err := claimKind(m[1])
+	if err != nil {
+		return nil, true, errAt(t.col, "%s: %v", t.text, err)
 	}
-	kinds := map[string]hightemp.Kind{"logz": hightemp.LogZ, "energy": hightemp.Energy, "entropy": hightemp.Entropy,
-		"heat": hightemp.Heat, "kappa": hightemp.Cumulants, "mu": hightemp.Moments}
-	k := kinds[m[1]]
+	top := 2 * hightemp.MaxOrder
+	if k == hightemp.Energy {
+		top-- // E = -d log Z/d beta lowers the top power by one
+	}
+	p, err := strconv.Atoi(m[2])
+	if err != nil || p > top {
+		return nil, true, errAt(t.col, "%s: the index must be at most %d", t.text, top)
+	}
 	switch {
 	case k == hightemp.Energy && p%2 == 0:
 		return nil, true, errAt(t.col, "%s: the energy has odd powers of beta only (E = -d log Z/d beta): write energy_1, energy_3, ...", t.text)
@@ -62,6 +67,19 @@ func parseHighTemp(t token) (*HighTemp, bool, error) {
 		return nil, true, errAt(t.col, "%s: the index starts at 2", t.text)
 	}
 	return &HighTemp{At: t.col, Text: t.text, Kind: k, Power: p}, true, nil
+}
+
+// claimKind resolves the prefix of a claim name: the quantity names of
+// hightemp, with kappa and mu (the symbols of the coefficients) for the
+// cumulants and the moments.
+func claimKind(prefix string) (hightemp.Kind, error) {
+	switch prefix {
+	case "kappa":
+		prefix = "cumulants"
+	case "mu":
+		prefix = "moments"
+	}
+	return hightemp.ParseKind(prefix)
 }
 
 // poly returns the coefficient as a polynomial in 1/q.

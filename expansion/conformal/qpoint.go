@@ -23,9 +23,23 @@ func ParseQ(text string, prec uint) (QPoint, error) {
 	case "inf", "infinity", "+inf":
 		return QPoint{Inf: true}, nil
 	}
-	q, _, err := big.ParseFloat(t, 10, prec, big.ToNearestEven)
+	var q *big.Float
+	var err error
+	if num, den, isFrac := strings.Cut(t, "/"); isFrac {
+		// a fraction such as 9/2, read exactly and rounded once
+		r, ok := new(big.Rat).SetString(t)
+		if !ok || !plainDecimal(num) || !plainDecimal(den) {
+			err = fmt.Errorf("not a fraction")
+		} else {
+			q = new(big.Float).SetPrec(prec).SetRat(r)
+		}
+	} else if !plainDecimal(t) {
+		err = fmt.Errorf("not a decimal")
+	} else {
+		q, _, err = big.ParseFloat(t, 10, prec, big.ToNearestEven)
+	}
 	if err != nil || q.IsInf() {
-		return QPoint{}, fmt.Errorf("cannot read q = %q as a number (use a decimal such as 4 or 2.5, or inf)", text)
+		return QPoint{}, fmt.Errorf("cannot read q = %q as a number (use a decimal such as 4 or 2.5, a fraction such as 9/2, or inf)", text)
 	}
 	if q.Cmp(big.NewFloat(2)) < 0 {
 		return QPoint{}, fmt.Errorf("q = %s is below 2: supported is 2 <= q <= inf (q = 2 is free random hopping)", text)
@@ -75,4 +89,28 @@ func (p QPoint) X(prec uint) *big.Float {
 		return new(big.Float).SetPrec(prec)
 	}
 	return new(big.Float).SetPrec(prec).Quo(bigInt(1, prec), p.Q)
+}
+
+// PlainDecimal reports whether s is written in decimal digits with an
+// optional sign, point and exponent (1, 2.5, 1e3): no hexadecimal,
+// underscores or words, which the strconv and math/big readers also take.
+func PlainDecimal(s string) bool { return plainDecimal(s) }
+
+func plainDecimal(s string) bool {
+	s = strings.TrimSpace(s)
+	if s == "" {
+		return false
+	}
+	digits := false
+	for i, c := range s {
+		switch {
+		case c >= '0' && c <= '9':
+			digits = true
+		case c == '.' || c == 'e' || c == 'E':
+		case (c == '+' || c == '-') && (i == 0 || s[i-1] == 'e' || s[i-1] == 'E'):
+		default:
+			return false
+		}
+	}
+	return digits
 }

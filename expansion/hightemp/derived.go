@@ -18,7 +18,7 @@ const (
 	Entropy               // S/N = log Z/N + beta E/N
 	Heat                  // C/N = beta^2 d^2(log Z/N)/d beta^2
 	Cumulants             // kappa_2k/N = (2k)! a_k
-	Moments               // moments of the density with cumulants kappa_2k/N
+	Moments               // formal moments that go with the cumulants kappa_2k/N
 )
 
 // Kinds lists the quantities in their one order, with their names.
@@ -35,7 +35,7 @@ var Kinds = []struct {
 	{Entropy, "entropy", "beta", "S/N = log Z/N + beta E/N = (1/2) log 2 + sum_k (1-2k) a_k beta^(2k)"},
 	{Heat, "heat", "beta", "C/N = beta^2 d^2(log Z/N)/d beta^2 = sum_k 2k(2k-1) a_k beta^(2k)"},
 	{Cumulants, "cumulants", "index", "kappa_2k/N = (2k)! a_k: cumulants of the many-body spectral density per fermion"},
-	{Moments, "moments", "index", "mu_2k = (2k)! [beta^(2k)] exp(sum_k a_k beta^(2k)): moments of the density whose cumulants are kappa_2k/N"},
+	{Moments, "moments", "index", "mu_2k = (2k)! [beta^(2k)] exp(sum_k a_k beta^(2k)) = (2k)! [beta^(2k)] (Z/2^(N/2))^(1/N): the formal moments that go with the cumulants kappa_2k/N (not those of a positive density: mu_4 < mu_2^2 for q > 2)"},
 }
 
 // ParseKind resolves a quantity name (case-insensitive).
@@ -89,30 +89,25 @@ func HalfLog2(prec uint) *big.Float {
 
 // linearFactor is the factor that maps a_k to the coefficient of a linear
 // quantity, and the power that coefficient multiplies.
-func linearFactor(kind Kind, k int) (*big.Rat, int) {
+// ok is false for Moments, which are not linear in the a_k.
+func linearFactor(kind Kind, k int) (f *big.Rat, power int, ok bool) {
 	kk := int64(k)
 	switch kind {
 	case LogZ:
-		return big.NewRat(1, 1), 2 * k
+		return big.NewRat(1, 1), 2 * k, true
 	case Energy:
-		return big.NewRat(-2*kk, 1), 2*k - 1
+		return big.NewRat(-2*kk, 1), 2*k - 1, true
 	case Entropy:
-		return big.NewRat(1-2*kk, 1), 2 * k
+		return big.NewRat(1-2*kk, 1), 2 * k, true
 	case Heat:
-		return big.NewRat(2*kk*(2*kk-1), 1), 2 * k
+		return big.NewRat(2*kk*(2*kk-1), 1), 2 * k, true
 	case Cumulants:
-		return new(big.Rat).SetInt(factorial(2 * k)), 2 * k
+		return new(big.Rat).SetInt(factorial(2 * k)), 2 * k, true
 	}
-	panic("hightemp: linearFactor of a non-linear kind")
+	return nil, 0, false
 }
 
-func factorial(n int) *big.Int {
-	f := big.NewInt(1)
-	for i := 2; i <= n; i++ {
-		f.Mul(f, big.NewInt(int64(i)))
-	}
-	return f
-}
+func factorial(n int) *big.Int { return new(big.Int).MulRange(1, int64(n)) }
 
 // Derive returns the terms of kind at one q, from the coefficients c.
 func Derive(kind Kind, c *Coefficients) []Term {
@@ -128,7 +123,10 @@ func Derive(kind Kind, c *Coefficients) []Term {
 		return out
 	}
 	for k := 1; k < len(c.A); k++ {
-		f, p := linearFactor(kind, k)
+		f, p, ok := linearFactor(kind, k)
+		if !ok {
+			break
+		}
 		out = append(out, Term{Power: p, Value: new(big.Rat).Mul(f, c.A[k])})
 	}
 	return out
@@ -147,7 +145,10 @@ func DeriveSymbolic(kind Kind, s *Symbolic) []SymTerm {
 		return out
 	}
 	for k := 1; k < len(s.A); k++ {
-		f, p := linearFactor(kind, k)
+		f, p, ok := linearFactor(kind, k)
+		if !ok {
+			break
+		}
 		out = append(out, SymTerm{Power: p, Value: s.A[k].Scale(f)})
 	}
 	return out

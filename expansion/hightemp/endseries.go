@@ -89,7 +89,7 @@ func (s *Symbolic) EndSeries(variable string, beta *big.Float, maxPower int, pre
 			sum.Add(sum, terms[m][k])
 		}
 		partial := Sum{Value: sum, Method: fmt.Sprintf("exact high-temperature coefficients through t^%d summed at beta = %s", K, beta.Text('g', 10))}
-		partial.Err, partial.Reason = geometricTail(terms[m][1:], prec)
+		partial.Err, partial.Reason, partial.Diverges = geometricTail(terms[m][1:], prec)
 		if partial.Err != nil {
 			floor := new(big.Float).SetMantExp(new(big.Float).Abs(sum), -int(prec)+8)
 			if partial.Err.Cmp(floor) < 0 {
@@ -125,11 +125,12 @@ func (s *Symbolic) EndSeries(variable string, beta *big.Float, maxPower int, pre
 const exactReason = "exact: no high-temperature order contributes"
 
 // geometricTail bounds the rest of a series from its last terms, or says
-// why it cannot (or that there is no rest: "exact").
-func geometricTail(terms []*big.Float, prec uint) (*big.Float, string) {
+// why it cannot (or that there is no rest: "exact"); diverges reports
+// last terms that grow.
+func geometricTail(terms []*big.Float, prec uint) (tail *big.Float, reason string, diverges bool) {
 	n := len(terms)
 	if n < 4 {
-		return nil, "not estimated: fewer than four high-temperature orders"
+		return nil, "not estimated: fewer than four high-temperature orders", false
 	}
 	last := new(big.Float).Abs(terms[n-1])
 	if last.Sign() == 0 {
@@ -139,14 +140,14 @@ func geometricTail(terms []*big.Float, prec uint) (*big.Float, string) {
 			allZero = allZero && x.Sign() == 0
 		}
 		if allZero {
-			return nil, exactReason
+			return nil, exactReason, false
 		}
-		return nil, "not estimated: the last term vanishes but earlier ones do not"
+		return nil, "not estimated: the last term vanishes but earlier ones do not", false
 	}
 	rho := new(big.Float).SetPrec(prec)
 	for i := n - 3; i < n; i++ {
 		if terms[i-1].Sign() == 0 {
-			return nil, "not estimated: a zero among the last terms"
+			return nil, "not estimated: a zero among the last terms", false
 		}
 		r := new(big.Float).SetPrec(prec).Quo(terms[i], terms[i-1])
 		r.Abs(r)
@@ -155,13 +156,13 @@ func geometricTail(terms []*big.Float, prec uint) (*big.Float, string) {
 		}
 	}
 	if rho.Cmp(big.NewFloat(1)) >= 0 {
-		return nil, fmt.Sprintf("not estimated: the last terms grow (ratio %s): beta^2 is beyond the radius of the series in t", rho.Text('g', 3))
+		return nil, fmt.Sprintf("diverges: the last terms grow (ratio %s): beta^2 is beyond the radius of the series in t", rho.Text('g', 3)), true
 	}
 	if rho.Cmp(big.NewFloat(0.9)) >= 0 {
-		return nil, fmt.Sprintf("not estimated: the last terms fall by a factor %s only", new(big.Float).Quo(big.NewFloat(1), rho).Text('g', 3))
+		return nil, fmt.Sprintf("not estimated: the last terms fall by a factor %s only", new(big.Float).Quo(big.NewFloat(1), rho).Text('g', 3)), false
 	}
-	tail := new(big.Float).SetPrec(prec).Quo(rho, new(big.Float).SetPrec(prec).Sub(big.NewFloat(1), rho))
+	tail = new(big.Float).SetPrec(prec).Quo(rho, new(big.Float).SetPrec(prec).Sub(big.NewFloat(1), rho))
 	tail.Mul(tail, last)
 	tail.Mul(tail, big.NewFloat(2))
-	return tail, ""
+	return tail, "", false
 }

@@ -3,6 +3,7 @@ package hightemp
 import (
 	"fmt"
 	"math/big"
+	"strings"
 
 	"qbridge/series"
 	"qbridge/series/pade"
@@ -15,6 +16,9 @@ type Sum struct {
 	Value, Err *big.Float
 	// Method says how the value was obtained.
 	Method, Reason string
+	// Diverges marks a partial sum taken beyond the radius of convergence:
+	// Value is then the sum of the terms, not an estimate of the quantity.
+	Diverges bool
 }
 
 // Summed holds the two ways of summing a quantity at one beta.
@@ -28,10 +32,16 @@ type Summed struct {
 	Radius RadiusEstimate
 }
 
-// Best returns the sum with the smaller stated error (Partial if neither
-// has one).
+// Best returns the sum with the smaller stated error; when neither has
+// one, the Pade value unless it failed, since a partial sum without an
+// error is one taken at or beyond the radius.
 func (s *Summed) Best() Sum {
 	switch {
+	case s.Pade.Err == nil && s.Partial.Err == nil:
+		if s.Pade.Value != nil {
+			return s.Pade
+		}
+		return s.Partial
 	case s.Pade.Err == nil:
 		return s.Partial
 	case s.Partial.Err == nil || s.Pade.Err.Cmp(s.Partial.Err) < 0:
@@ -108,15 +118,21 @@ func partialSum(f []*big.Float, t, pre *big.Float, r RadiusEstimate, prec uint) 
 	K := len(f) - 1
 	out := Sum{Value: sum, Method: fmt.Sprintf("partial sum through t^%d (t = beta^2), exact coefficients", K)}
 	if r.T == nil {
-		out.Reason = "tail not estimated: " + r.Reason
+		out.Reason = "tail not estimated, since the radius is not: " + strings.TrimPrefix(r.Reason, "not estimated: ")
 		return out
 	}
-	// the radius is known to |T| - TErr at worst
+	// the radius is known to |T| -+ TErr
 	lo := new(big.Float).SetPrec(prec).Abs(r.T)
+	hi := new(big.Float).SetPrec(prec).Add(lo, r.TErr)
 	lo.Sub(lo, r.TErr)
+	if t.Cmp(hi) > 0 {
+		out.Diverges = true
+		out.Reason = fmt.Sprintf("diverges: beta^2 = %s lies beyond the radius |t_c| = %s +- %s", t.Text('g', 6), new(big.Float).Abs(r.T).Text('g', 6), r.TErr.Text('e', 1))
+		return out
+	}
 	rho := new(big.Float).SetPrec(prec).Quo(t, lo)
 	if lo.Sign() <= 0 || rho.Cmp(big.NewFloat(1)) >= 0 {
-		out.Reason = fmt.Sprintf("tail not estimated: beta^2 = %s is not inside the radius |t_c| = %s", t.Text('g', 6), new(big.Float).Abs(r.T).Text('g', 6))
+		out.Reason = fmt.Sprintf("tail not estimated: beta^2 = %s is not safely inside the radius |t_c| = %s +- %s", t.Text('g', 6), new(big.Float).Abs(r.T).Text('g', 6), r.TErr.Text('e', 1))
 		return out
 	}
 	last := new(big.Float).SetPrec(prec).Abs(f[K])
