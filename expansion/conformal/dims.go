@@ -21,7 +21,7 @@ func dimensionSeries(end End, n, order int, prec uint) ([]*big.Float, error) {
 	if err != nil {
 		return nil, err
 	}
-	y0, err := kernelRoot(eq, f, end, n, nil, fmt.Sprintf("h_%d at the %s end", n, end))
+	y0, _, err := kernelRoot(eq, f, end, n, nil, fmt.Sprintf("h_%d at the %s end", n, end))
 	if err != nil {
 		return nil, err
 	}
@@ -85,15 +85,82 @@ const nearEnd = 1e-3
 
 // dimensionExact returns h_n(q) at prec bits.
 func dimensionExact(q QPoint, n int, prec uint) (*big.Float, error) {
+	h, _, err := dimensionRoot(q, n, prec, nil)
+	return h, err
+}
+
+// rootSeed is a root found at a lower precision, with the constant C of
+// Newton's quadratic convergence measured there: it lets the run at the
+// second precision start from it and stop after one evaluation.
+type rootSeed struct {
+	y, c *big.Float
+	// h is the root of the two-Gamma route (nil when it was not taken)
+	h *big.Float
+}
+
+// dimensionTwoGamma finds h_n(q), n >= 1, at a finite q > 2 with the
+// two-Gamma form of k_A (twoGammaKernel): a float64 bracket, then Newton
+// with the precision rising with the accuracy; from seed (a root at a
+// lower precision) one step suffices. ok is false where the float64
+// bracket cannot resolve the root, and the general route is taken.
+func dimensionTwoGamma(q QPoint, n int, prec uint, seed *rootSeed) (*big.Float, *rootSeed, bool) {
+	k := newTwoGammaKernel(new(big.Float).SetPrec(prec + 16).Set(q.Q))
+	var h0, lo, hi *big.Float
+	acc := 40
+	if seed != nil && seed.h != nil {
+		h0 = seed.h
+		acc = int(seed.h.Prec()) - 8
+		w := new(big.Float).SetMantExp(big.NewFloat(1), max(h0.MantExp(nil), 1)-32)
+		lo = new(big.Float).SetPrec(prec).Sub(h0, w)
+		hi = new(big.Float).SetPrec(prec).Add(h0, w)
+	} else {
+		l, u, ok := k.bracket(n)
+		if !ok {
+			return nil, nil, false
+		}
+		h0 = new(big.Float).SetPrec(prec).SetFloat64(0.5 * (l + u))
+		w := u - l
+		lo = new(big.Float).SetPrec(prec).SetFloat64(l - w)
+		hi = new(big.Float).SetPrec(prec).SetFloat64(u + w)
+	}
+	h, err := k.root(h0, lo, hi, acc, prec)
+	if err != nil {
+		return nil, nil, false
+	}
+	return h, &rootSeed{h: h}, true
+}
+
+// dimensionRoot returns h_n(q) at prec bits and the seed for a run at a
+// higher precision; with seed, the root is refined from it (and found
+// afresh if the refinement leaves a window of 2^-32 around it).
+func dimensionRoot(q QPoint, n int, prec uint, seed *rootSeed) (*big.Float, *rootSeed, error) {
 	if !q.Inf && !q.IsTwo() {
 		lim := big.NewFloat(nearEnd)
 		if t := q.Eps(prec); t.Cmp(lim) < 0 {
-			return dimensionNearEnd(AroundTwo, n, t, prec)
+			h, err := dimensionNearEnd(AroundTwo, n, t, prec)
+			return h, nil, err
 		}
 		if t := q.X(prec); t.Cmp(lim) < 0 {
-			return dimensionNearEnd(AroundInf, n, t, prec)
+			h, err := dimensionNearEnd(AroundInf, n, t, prec)
+			return h, nil, err
 		}
 	}
+	if !q.Inf && !q.IsTwo() && n >= 1 {
+		if h, sd, ok := dimensionTwoGamma(q, n, prec, seed); ok {
+			return h, sd, nil
+		}
+	}
+	return dimensionFourGammaSeeded(q, n, prec, seed)
+}
+
+// dimensionFourGamma solves the four-Gamma equation of k_A (the route
+// that also gives the series) for h_n(q) at prec bits.
+func dimensionFourGamma(q QPoint, n int, prec uint) (*big.Float, error) {
+	h, _, err := dimensionFourGammaSeeded(q, n, prec, nil)
+	return h, err
+}
+
+func dimensionFourGammaSeeded(q QPoint, n int, prec uint, seed *rootSeed) (*big.Float, *rootSeed, error) {
 	var s *series.Series
 	var end End
 	var err error
@@ -109,23 +176,34 @@ func dimensionExact(q QPoint, n int, prec uint) (*big.Float, error) {
 		s, err = series.FromBig(prec, []*big.Float{q.Eps(prec)})
 	}
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	f := formAt(end, n, s)
 	eq, err := kernelEquation(f, prec)
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	var s0 *big.Float
 	if s.Len() == 1 {
 		s0 = s.Coeff(0)
 	}
-	y, err := kernelRoot(eq, f, end, n, s0, fmt.Sprintf("h_%d at q = %s", n, q))
-	if err != nil {
-		return nil, err
+	var y, c *big.Float
+	if seed != nil && seed.c != nil {
+		y = new(big.Float).SetPrec(prec).Set(seed.y)
+		w := new(big.Float).SetMantExp(big.NewFloat(1), max(y.MantExp(nil), 1)-32)
+		lo := new(big.Float).SetPrec(prec).Sub(y, w)
+		hi := new(big.Float).SetPrec(prec).Add(y, w)
+		if y, c, err = eq.newtonScalarC(y, lo, hi, seed.c); err != nil || eq.signAt(y) < 0 {
+			y = nil
+		}
+	}
+	if y == nil {
+		if y, c, err = kernelRoot(eq, f, end, n, s0, fmt.Sprintf("h_%d at q = %s", n, q)); err != nil {
+			return nil, nil, err
+		}
 	}
 	h := new(big.Float).SetPrec(prec).Mul(f.scale.Coeff(0), y)
-	return h.Add(h, f.base), nil
+	return h.Add(h, f.base), &rootSeed{y: y, c: c}, nil
 }
 
 // Dimension returns h_n(q), the n-th solution of k_A(h) = 1 (n = 0 is the
@@ -137,8 +215,14 @@ func Dimension(q QPoint, n, digits int) (*Value, error) {
 	if err := checkN(n); err != nil {
 		return nil, err
 	}
+	// the run at the higher precision starts from the root of the lower one
+	var seed *rootSeed
 	v, err := exactValue(fmt.Sprintf("h_%d", n), q, digits, "bisection between the pole and zero of k_A, Newton polish (within 1e-3 of an end in eps or x: the Taylor series there, summed below the working precision)",
-		func(q QPoint, prec uint) (*big.Float, error) { return dimensionExact(q, n, prec) })
+		func(q QPoint, prec uint) (*big.Float, error) {
+			h, sd, err := dimensionRoot(q, n, prec, seed)
+			seed = sd
+			return h, err
+		})
 	if err != nil {
 		return nil, err
 	}
@@ -173,17 +257,17 @@ func dimensionNearEnd(end End, n int, t *big.Float, prec uint) (*big.Float, erro
 // coarse equation at the expansion point (s0 == nil) or at s0, polishes it,
 // and checks that it is a root of k_A = +1 (not -1). what names the root
 // in error messages.
-func kernelRoot(eq *logEquation, f *kernelForm, end End, n int, s0 *big.Float, what string) (*big.Float, error) {
+func kernelRoot(eq *logEquation, f *kernelForm, end End, n int, s0 *big.Float, what string) (y, c *big.Float, err error) {
 	coarse, err := coarseEquation(end, n, s0)
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
-	y, err := eq.scalarRoot(f.samples, coarse)
+	y, c, err = eq.scalarRootC(f.samples, coarse)
 	if err != nil {
-		return nil, fmt.Errorf("%s: %w", what, err)
+		return nil, nil, fmt.Errorf("%s: %w", what, err)
 	}
 	if eq.signAt(y) < 0 {
-		return nil, fmt.Errorf("%s: k_A = -1 rather than +1 at the root: no dimension there", what)
+		return nil, nil, fmt.Errorf("%s: k_A = -1 rather than +1 at the root: no dimension there", what)
 	}
-	return y, nil
+	return y, c, nil
 }

@@ -258,6 +258,13 @@ func (e *logEquation) scalarAt(y *big.Float) (L, Ly *big.Float, err error) {
 // precision. The scan and the bisection use coarse, the same equation at a
 // low precision, when it is not nil (they only need signs).
 func (e *logEquation) scalarRoot(samples []*big.Float, coarse *logEquation) (*big.Float, error) {
+	y, _, err := e.scalarRootC(samples, coarse)
+	return y, err
+}
+
+// scalarRootC is scalarRoot that also returns Newton's convergence
+// constant (see newtonScalarC).
+func (e *logEquation) scalarRootC(samples []*big.Float, coarse *logEquation) (*big.Float, *big.Float, error) {
 	if coarse == nil {
 		coarse = e
 	}
@@ -265,13 +272,13 @@ func (e *logEquation) scalarRoot(samples []*big.Float, coarse *logEquation) (*bi
 	if !ok {
 		var err error
 		if lo, hi, err = coarse.bracket(samples); err != nil {
-			return nil, err
+			return nil, nil, err
 		}
 	}
 	half := big.NewFloat(0.5)
 	y := new(big.Float).SetPrec(e.prec).Add(lo, hi)
 	y.Mul(y, half)
-	return e.newtonScalar(y, lo, hi)
+	return e.newtonScalarC(y, lo, hi, nil)
 }
 
 // scalarAtFloat64 returns L(y) at s = 0 in float64 arithmetic, a bound on
@@ -388,15 +395,29 @@ func (e *logEquation) bracket(samples []*big.Float) (lo, hi *big.Float, err erro
 }
 
 // newtonScalar polishes a root of L inside [lo, hi] by Newton's method until
-// the step stops shrinking or falls below the working precision.
+// the step stops shrinking or falls below the working precision, or until
+// quadratic convergence predicts that the next one would: after steps
+// s_(k-1), s_k the next is about C s_k^2 with C = |s_k|/|s_(k-1)|^2, and
+// when 4 C s_k^2 is below the precision the evaluation that would only
+// confirm it is skipped.
 func (e *logEquation) newtonScalar(y, lo, hi *big.Float) (*big.Float, error) {
+	y, _, err := e.newtonScalarC(y, lo, hi, nil)
+	return y, err
+}
+
+// newtonScalarC is newtonScalar that also returns the convergence constant
+// C it measured (nil when it took fewer than two steps) and can start from
+// a known one, c0: a root found at a lower precision is then refined by a
+// single evaluation.
+func (e *logEquation) newtonScalarC(y, lo, hi, c0 *big.Float) (*big.Float, *big.Float, error) {
 	p := e.prec
 	step := new(big.Float).SetPrec(p)
 	var lastStep *big.Float
+	c := c0
 	// The bracket comes from signs of L evaluated in rounded arithmetic, so
 	// a root on its edge may sit just outside: allow one bracket width.
 	w := new(big.Float).SetPrec(p).Sub(hi, lo)
-	if minW := new(big.Float).SetMantExp(big.NewFloat(1), -60); w.Cmp(minW) < 0 {
+	if minW := new(big.Float).SetMantExp(big.NewFloat(1), -60); w.Cmp(minW) < 0 && c0 == nil {
 		w = minW
 	}
 	lo = new(big.Float).SetPrec(p).Sub(lo, w)
@@ -404,29 +425,43 @@ func (e *logEquation) newtonScalar(y, lo, hi *big.Float) (*big.Float, error) {
 	for it := 0; it < 200; it++ {
 		f, df, err := e.scalarAt(y)
 		if err != nil {
-			return nil, err
+			return nil, nil, err
 		}
 		if f.Sign() == 0 || df.Sign() == 0 {
-			return y, nil
+			return y, c, nil
 		}
 		step.Quo(f, df)
 		y.Sub(y, step)
 		if y.Cmp(lo) < 0 || y.Cmp(hi) > 0 {
-			return nil, errors.New("expansion: Newton step left the bracket of the root")
+			return nil, nil, errors.New("expansion: Newton step left the bracket of the root")
 		}
 		as := new(big.Float).Abs(step)
 		// Steps are measured against the size of y, but at least against 1:
 		// y = 0 is a legitimate root (the soft mode h_0 = 2).
 		scale := max(y.MantExp(nil), 1)
 		if step.Sign() == 0 || as.MantExp(nil) < scale-int(p)+4 {
-			return y, nil
+			return y, c, nil
 		}
 		if lastStep != nil && as.Cmp(lastStep) >= 0 && as.MantExp(nil) < scale-int(p)/2 {
-			return y, nil // rounding-level steps no longer shrink
+			return y, c, nil // rounding-level steps no longer shrink
+		}
+		if lastStep != nil && as.Cmp(lastStep) < 0 {
+			// a shrinking step: measure C, keeping the largest seen
+			ck := new(big.Float).SetPrec(64).Quo(as, new(big.Float).SetPrec(64).Mul(lastStep, lastStep))
+			if c == nil || ck.Cmp(c) > 0 {
+				c = ck
+			}
+		}
+		if c != nil {
+			next := new(big.Float).SetPrec(64).Mul(as, as)
+			next.Mul(next, c)
+			if next.Sign() == 0 || next.MantExp(nil)+2 < scale-int(p)+4 {
+				return y, c, nil
+			}
 		}
 		lastStep = as
 	}
-	return nil, errors.New("expansion: Newton iteration for the root did not converge in 200 steps")
+	return nil, nil, errors.New("expansion: Newton iteration for the root did not converge in 200 steps")
 }
 
 // seriesRoot solves L(s, y(s)) = 0 for the series y(s) of length n with
