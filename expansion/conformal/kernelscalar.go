@@ -4,6 +4,8 @@ import (
 	"errors"
 	"math"
 	"math/big"
+	"strconv"
+	"sync"
 
 	"qbridge/series/scalar"
 )
@@ -24,20 +26,55 @@ import (
 // Gamma arguments are positive, the fast case of BigLogGamma.
 type twoGammaKernel struct {
 	q, d *big.Float
-	// logConst caches log|(q-1) C 2^(2-4D)| by precision.
-	logConst map[uint]*big.Float
+	// logConst is log|(q-1) C 2^(2-4D)| at the precision of q.
+	logConst *big.Float
 }
 
 func newTwoGammaKernel(q *big.Float) *twoGammaKernel {
 	d := new(big.Float).SetPrec(q.Prec()).Quo(big.NewFloat(1), q)
-	return &twoGammaKernel{q: q, d: d, logConst: map[uint]*big.Float{}}
+	return &twoGammaKernel{q: q, d: d}
 }
 
-// constant returns log|(q-1) C 2^(2-4D)| at prec bits.
+// kernelConstants keeps log|(q-1) C 2^(2-4D)| by q and precision: the
+// dimensions h_1, h_2, ... at one q share it.
+var kernelConstants struct {
+	sync.Mutex
+	m map[string]*big.Float
+}
+
+// resetKernelConstants empties the cache (benchmarks time the first use).
+func resetKernelConstants() {
+	kernelConstants.Lock()
+	kernelConstants.m = nil
+	kernelConstants.Unlock()
+}
+
+// constant returns log|(q-1) C 2^(2-4D)| at prec bits (at most the
+// precision of q).
 func (k *twoGammaKernel) constant(prec uint) (*big.Float, error) {
-	if c, ok := k.logConst[prec]; ok {
-		return c, nil
+	if k.logConst == nil {
+		key := k.q.Text('p', 0) + "/" + strconv.Itoa(int(k.q.Prec()))
+		kernelConstants.Lock()
+		c, ok := kernelConstants.m[key]
+		kernelConstants.Unlock()
+		if !ok {
+			var err error
+			if c, err = k.computeConstant(k.q.Prec()); err != nil {
+				return nil, err
+			}
+			kernelConstants.Lock()
+			if kernelConstants.m == nil || len(kernelConstants.m) > 256 {
+				kernelConstants.m = map[string]*big.Float{}
+			}
+			kernelConstants.m[key] = c
+			kernelConstants.Unlock()
+		}
+		k.logConst = c
 	}
+	return new(big.Float).SetPrec(min(prec, k.logConst.Prec())).Set(k.logConst), nil
+}
+
+func (k *twoGammaKernel) computeConstant(prec uint) (*big.Float, error) {
 	wp := prec + 16
 	d := new(big.Float).SetPrec(wp).Set(k.d)
 	lg := func(a, b int64, sign int) (*big.Float, error) { // log Gamma(a/b + sign D)
@@ -75,8 +112,7 @@ func (k *twoGammaKernel) constant(prec uint) (*big.Float, error) {
 	two.Add(two, big.NewFloat(2))
 	two.Mul(two, scalar.Ln2(wp))
 	sum.Add(sum, two)
-	k.logConst[prec] = sum.SetPrec(prec)
-	return k.logConst[prec], nil
+	return sum.SetPrec(prec), nil
 }
 
 // at returns L = log|k_A(h)| at pL bits and dL/dh at pD bits (Newton

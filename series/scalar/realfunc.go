@@ -81,11 +81,13 @@ func atanhSeries(z *big.Float, prec uint) *big.Float {
 // (bigfloat_ref_test.go), where they agree with it to within 0.5 ulp at 30
 // to 200 digits. Measured with go test -bench 'Own|Bigfloat' -benchtime
 // 200x on the 2-core test machine, at 100 digits for x = 3.14159...: exp
-// 23-38 us own vs 370-480 us bigfloat (Newton on its log), log 37-57 us vs
-// 122-137 us (AGM), pow(x, 2.5) 100-127 us vs 520-610 us; at 300 digits exp
-// 74-104 us vs 1.07-1.14 ms, log 164-214 us vs 217-252 us, pow 211-253 us
-// vs 1.08-1.42 ms. bigfloat also panics on bad arguments where these return
-// ErrDomain, and updates its pi cache above 1024 bits without a lock.
+// 23-38 us own vs 370-480 us bigfloat (Newton on its log), log 29 us vs
+// 108-137 us (AGM), pow(x, 2.5) 100-127 us vs 520-610 us; at 300 digits
+// exp 74-104 us vs 1.07-1.14 ms, log 79 us vs 217-277 us, pow 211-253 us
+// vs 1.08-1.42 ms. (log took 37-57 and 164-214 us with square roots for the
+// reduction, before the float64-seeded one.) bigfloat also panics on bad
+// arguments where these return ErrDomain, and updates its pi cache above
+// 1024 bits without a lock.
 
 // BigExp returns e^x at prec bits: x = n log 2 + r, e^r from its Taylor
 // series at r/2^h, squared h times.
@@ -155,41 +157,36 @@ var ErrDomain = errors.New("series: argument outside the function's domain")
 
 // BigLog returns log x at prec bits; x must be positive (see the note above
 // BigExp for its timing against the bigfloat test reference). With x = m 2^e,
-// m in [1/2, 1), log x = e log 2 + 2^(k+1) atanh((r-1)/(r+1)) where
-// r = m^(1/2^k) is brought close to 1 by k square roots.
+// m in [1/2, 1), and c = log m in float64, r = m e^-c is within 2^-50 of 1,
+// so log x = e log 2 + c + 2 atanh((r-1)/(r+1)) needs one exponential and
+// three or four terms of the atanh series.
 func BigLog(x *big.Float, prec uint) (*big.Float, error) {
 	if x.Sign() <= 0 || x.IsInf() {
 		return nil, ErrDomain
 	}
-	k := 4
-	for k*k < int(prec)/2 {
-		k++
-	}
-	p := prec + Guard + uint(k)
+	p := prec + Guard
 	m := new(big.Float).SetPrec(p)
 	e := 0
-	roots := k
 	if x.Cmp(big.NewFloat(0.5)) >= 0 && x.Cmp(big.NewFloat(2)) < 0 {
 		m.Set(x) // near 1: no exponent split, so log x keeps its relative accuracy
-		// Each square root of m = 1 + d rounds at 2^-p absolutely, which
-		// costs relative accuracy of d; so when |d| < 2^-j already, take only
-		// the k-j roots needed to bring it below 2^-k.
-		d := new(big.Float).SetPrec(p).Sub(x, big.NewFloat(1))
-		if j := -d.MantExp(nil); d.Sign() != 0 && j > 0 {
-			roots = max(k-j, 0)
-		}
 	} else {
 		e = x.MantExp(m)
 		m.SetPrec(p) // MantExp gives m the precision of x
 	}
-	for i := 0; i < roots; i++ {
-		m.Sqrt(m)
+	mf, _ := m.Float64()
+	c := math.Log(mf)
+	if e == 0 && c != 0 {
+		// log m is small near m = 1: its absolute error 2^-p must be
+		// relative, so carry as many more bits as it has leading zeros
+		p += uint(max(0, -math.Ilogb(c)))
+		m.SetPrec(p)
 	}
-	num := new(big.Float).SetPrec(p).Sub(m, big.NewFloat(1))
-	den := new(big.Float).SetPrec(p).Add(m, big.NewFloat(1))
-	z := num.Quo(num, den)
-	l := atanhSeries(z, p)
-	l.SetMantExp(l, roots+1)
+	r := new(big.Float).SetPrec(p).Mul(m, BigExp(new(big.Float).SetPrec(p).SetFloat64(-c), p))
+	num := new(big.Float).SetPrec(p).Sub(r, big.NewFloat(1))
+	den := new(big.Float).SetPrec(p).Add(r, big.NewFloat(1))
+	l := atanhSeries(num.Quo(num, den), p)
+	l.SetMantExp(l, 1)
+	l.Add(l, new(big.Float).SetPrec(p).SetFloat64(c))
 	if e != 0 {
 		t := Ln2(p)
 		t.Mul(t, new(big.Float).SetInt64(int64(e)))
