@@ -51,25 +51,39 @@ func ComposeTaylor(taylor []*big.Float, s *Series) (*Series, error) {
 	// reach the result: the accumulator grows by one coefficient per step,
 	// and the composition costs about n^3/6 products instead of n^3/2.
 	u := s.c
-	acc := make([]*big.Float, 1, n)
-	acc[0] = new(big.Float).SetPrec(prec).Set(taylor[n-1])
+	// two buffers of n coefficients, swapped each step, so the n^2/2
+	// products of the composition allocate nothing once the mantissas have
+	// grown to prec
+	acc, next := newFloats(n, prec), newFloats(n, prec)
+	acc[0].Set(taylor[n-1])
 	t := new(big.Float).SetPrec(prec)
+	l := 1
 	for k := n - 2; k >= 0; k-- {
-		acc = mulByShifted(acc, u, t, prec)
+		mulByShifted(next[:l+1], acc[:l], u, t)
+		acc, next = next, acc
+		l++
 		acc[0].Set(taylor[k])
 	}
 	out.c = acc
 	return out, nil
 }
 
-// mulByShifted returns the first len(acc)+1 coefficients of acc * (u -
-// u(0)), whose constant term is zero; t is scratch space.
-func mulByShifted(acc, u []*big.Float, t *big.Float, prec uint) []*big.Float {
-	l := len(acc)
-	next := make([]*big.Float, l+1)
-	next[0] = new(big.Float).SetPrec(prec)
-	for m := 1; m <= l; m++ {
-		sum := new(big.Float).SetPrec(prec)
+func newFloats(n int, prec uint) []*big.Float {
+	out := make([]*big.Float, n)
+	for i := range out {
+		out[i] = new(big.Float).SetPrec(prec)
+	}
+	return out
+}
+
+// mulByShifted writes into next the first len(next) = len(acc)+1
+// coefficients of acc * (u - u(0)), whose constant term is zero; t is
+// scratch space.
+func mulByShifted(next, acc, u []*big.Float, t *big.Float) {
+	next[0].SetInt64(0)
+	for m := 1; m < len(next); m++ {
+		sum := next[m]
+		sum.SetInt64(0)
 		for i := 0; i < m; i++ {
 			if acc[i].Sign() == 0 || u[m-i].Sign() == 0 {
 				continue
@@ -77,7 +91,5 @@ func mulByShifted(acc, u []*big.Float, t *big.Float, prec uint) []*big.Float {
 			t.Mul(acc[i], u[m-i])
 			sum.Add(sum, t)
 		}
-		next[m] = sum
 	}
-	return next
 }

@@ -11,45 +11,65 @@ import (
 
 // dimensionSeries returns the coefficients h_n,0..h_n,order at prec bits.
 func dimensionSeries(end End, n, order int, prec uint) ([]*big.Float, error) {
+	h, _, err := dimensionSeriesFrom(end, n, order, prec, nil)
+	return h, err
+}
+
+// dimensionSeriesFrom is dimensionSeries that also returns the root series
+// y of the kernel equation, and, given the y of a run at a lower precision
+// (seed), refines it by one Newton step instead of solving afresh.
+func dimensionSeriesFrom(end End, n, order int, prec uint, seed []*big.Float) ([]*big.Float, []*big.Float, error) {
 	length := order + 3 // two spare terms: pole cancellation divides by s
 	s, err := series.Variable(length, prec, nil)
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	f := formAt(end, n, s)
 	eq, err := kernelEquation(f, prec)
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
-	y0, _, err := kernelRoot(eq, f, end, n, nil, fmt.Sprintf("h_%d at the %s end", n, end))
-	if err != nil {
-		return nil, err
+	var y *series.Series
+	if seed != nil && len(seed) == length-1 {
+		y, _, err = eq.seriesRootFrom(seed)
+	} else {
+		var y0 *big.Float
+		y0, _, err = kernelRoot(eq, f, end, n, nil, fmt.Sprintf("h_%d at the %s end", n, end))
+		if err != nil {
+			return nil, nil, err
+		}
+		y, _, err = eq.seriesRoot(y0, length-1)
 	}
-	y, _, err := eq.seriesRoot(y0, length-1)
 	if err != nil {
-		return nil, fmt.Errorf("h_%d at the %s end: %w", n, end, err)
+		return nil, nil, fmt.Errorf("h_%d at the %s end: %w", n, end, err)
 	}
 	h := series.AddConst(series.Mul(f.scale, y), f.base)
 	if h.Len() < order+1 {
-		return nil, errors.New("expansion: internal error: dimension series came out short")
+		return nil, nil, errors.New("expansion: internal error: dimension series came out short")
 	}
-	return h.Coeffs()[:order+1], nil
+	return h.Coeffs()[:order+1], y.Coeffs(), nil
 }
 
-// DimensionSeries returns the Taylor coefficients of the operator dimension
+// DimensionSeries returns the Taylor coefficients h_n,0 .. h_n,order of
 // h_n to the given order around one end: in eps = 1 - 2/q around q = 2, in
 // x = 1/q around q = infinity. The kernel equation k_A(h) = 1 is rewritten
 // so that the colliding pole and zero cancel analytically and is solved for
 // the whole series by Newton's iteration on series. Digits sets the working
 // precision; each coefficient's error is the difference between runs at two
-// precisions.
+// precisions, the second refining the first's root by one Newton step at
+// the higher precision (its size is the first's error).
 func DimensionSeries(end End, n, order, digits int) (*Coefficients, error) {
 	if err := checkN(n); err != nil {
 		return nil, err
 	}
+	var seed []*big.Float
 	c, err := twoPrecision(fmt.Sprintf("h_%d", n), end, order, digits,
 		"Newton iteration on series for k_A(h) = 1 with the colliding pole and zero cancelled",
-		func(order int, prec uint) ([]*big.Float, error) { return dimensionSeries(end, n, order, prec) })
+		func(order int, prec uint) ([]*big.Float, error) {
+			h, y, err := dimensionSeriesFrom(end, n, order, prec, seed)
+			seed = y
+			return h, err
+		})
 	if err != nil {
 		return nil, err
 	}

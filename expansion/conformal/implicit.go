@@ -464,6 +464,35 @@ func (e *logEquation) newtonScalarC(y, lo, hi, c0 *big.Float) (*big.Float, *big.
 	return nil, nil, errors.New("expansion: Newton iteration for the root did not converge in 200 steps")
 }
 
+// seriesRootFrom refines a root series found at a lower precision (seed,
+// length n) by one Newton step at e.prec: from an error 2^-p1 it leaves
+// about 2^-2p1, below e.prec whenever e.prec < 2 p1 - 24, as for the pair
+// of precisions of twoPrecision. The step's size, returned, is the error
+// of the seed.
+func (e *logEquation) seriesRootFrom(seed []*big.Float) (*series.Series, *big.Float, error) {
+	y, err := series.FromBig(e.prec, seed)
+	if err != nil {
+		return nil, nil, err
+	}
+	e.tayLen = len(seed) + 1
+	defer func() { e.tayLen = 0 }()
+	ev, err := e.eval(y)
+	if err != nil {
+		return nil, nil, err
+	}
+	corr, err := series.Div(ev.L, ev.Ly)
+	if err != nil {
+		return nil, nil, err
+	}
+	y = series.Sub(y, corr)
+	if y.Len() > len(seed) {
+		if y, err = y.Truncate(len(seed)); err != nil {
+			return nil, nil, err
+		}
+	}
+	return y, maxAbs(corr), nil
+}
+
 // seriesRoot solves L(s, y(s)) = 0 for the series y(s) of length n with
 // y(0) = y0, by Newton's iteration on whole series: each step
 // y <- y - L(y)/L_y(y) doubles the number of correct coefficients. It
