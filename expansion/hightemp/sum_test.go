@@ -115,3 +115,39 @@ func TestSumAgreesWithDirectSolver(t *testing.T) {
 		}
 	}
 }
+
+// The direct solver's -d log Z/d beta (a six-point difference of its log Z)
+// and its stated error, against the exact energy from the series at q = 4
+// (Pade in t, error below 1e-20 here).
+func TestSolverDerivativeErrorCovers(t *testing.T) {
+	if testing.Short() {
+		t.Skip("direct solves")
+	}
+	c, err := Solve(big.NewRat(4, 1), 30)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, beta := range []float64{0.5, 1, 2} {
+		sol, err := numeric.Solve(numeric.Params{Q: 4, Beta: beta})
+		if err != nil {
+			t.Fatal(err)
+		}
+		en, err := Evaluate(Energy, c, big.NewFloat(beta), 200)
+		if err != nil {
+			t.Fatal(err)
+		}
+		best := en.Best()
+		exact, _ := best.Value.Float64()
+		e, _ := best.Err.Float64()
+		for _, v := range []struct {
+			name     string
+			val, err float64
+		}{{"E", sol.E, sol.EErr}, {"-dlogZ/dbeta", sol.DLogZ, sol.DLogZErr}} {
+			d := math.Abs(v.val - exact)
+			t.Logf("beta=%g %s: %.16g +- %.2g, exact %.16g +- %.1g, true error %.2g", beta, v.name, v.val, v.err, exact, e, d)
+			if d > v.err+e+1e-17 {
+				t.Errorf("beta=%g: %s = %.16g +- %.2g does not cover the exact %.16g (off by %.3g)", beta, v.name, v.val, v.err, exact, d)
+			}
+		}
+	}
+}
