@@ -66,10 +66,10 @@ type Solution struct {
 	// change plus the solves' noise through the difference); Mismatch =
 	// E - DLogZ should vanish within MismatchErr = EErr + DLogZErr.
 	DLogZ, DLogZErr, Mismatch, MismatchErr float64
-	Checked                      bool     // false when SkipCheck was set
-	Levels                       []*Level // finest first
-	Iterations                   int      // total over all grids and checks
-	Tol                          float64  // residual tolerance of the iterations
+	Checked                                bool     // false when SkipCheck was set
+	Levels                                 []*Level // finest first
+	Iterations                             int      // total over all grids and checks
+	Tol                                    float64  // residual tolerance of the iterations
 }
 
 // ValidatePoints reports whether n is a supported number of grid points.
