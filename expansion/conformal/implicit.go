@@ -464,6 +464,15 @@ func (e *logEquation) newtonScalarC(y, lo, hi, c0 *big.Float) (*big.Float, *big.
 	return nil, nil, errors.New("expansion: Newton iteration for the root did not converge in 200 steps")
 }
 
+// newtonCorrection is the Newton step L(y)/L_y(y) for the series y.
+func (e *logEquation) newtonCorrection(y *series.Series) (*series.Series, error) {
+	ev, err := e.eval(y)
+	if err != nil {
+		return nil, err
+	}
+	return series.Div(ev.L, ev.Ly)
+}
+
 // seriesRootFrom refines a root series found at a lower precision (seed,
 // length n) by one Newton step at e.prec: from an error 2^-p1 it leaves
 // about 2^-2p1, below e.prec whenever e.prec < 2 p1 - 24, as for the pair
@@ -476,11 +485,7 @@ func (e *logEquation) seriesRootFrom(seed []*big.Float) (*series.Series, *big.Fl
 	}
 	e.tayLen = len(seed) + 1
 	defer func() { e.tayLen = 0 }()
-	ev, err := e.eval(y)
-	if err != nil {
-		return nil, nil, err
-	}
-	corr, err := series.Div(ev.L, ev.Ly)
+	corr, err := e.newtonCorrection(y)
 	if err != nil {
 		return nil, nil, err
 	}
@@ -515,11 +520,7 @@ func (e *logEquation) seriesRoot(y0 *big.Float, n int) (*series.Series, *big.Flo
 		if err != nil {
 			return nil, nil, err
 		}
-		ev, err := e.eval(yl)
-		if err != nil {
-			return nil, nil, err
-		}
-		corr, err := series.Div(ev.L, ev.Ly)
+		corr, err := e.newtonCorrection(yl)
 		if err != nil {
 			return nil, nil, err
 		}
@@ -533,11 +534,7 @@ func (e *logEquation) seriesRoot(y0 *big.Float, n int) (*series.Series, *big.Flo
 	var last *big.Float
 	maxIter := 8
 	for it := 0; it < maxIter; it++ {
-		ev, err := e.eval(y)
-		if err != nil {
-			return nil, nil, err
-		}
-		corr, err := series.Div(ev.L, ev.Ly)
+		corr, err := e.newtonCorrection(y)
 		if err != nil {
 			return nil, nil, err
 		}
