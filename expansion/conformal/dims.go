@@ -237,7 +237,7 @@ func Dimension(q QPoint, n, digits int) (*Value, error) {
 	}
 	// the run at the higher precision starts from the root of the lower one
 	var seed *rootSeed
-	v, err := exactValue(fmt.Sprintf("h_%d", n), q, digits, "bisection between the pole and zero of k_A, Newton polish (within 1e-3 of an end in eps or x: the Taylor series there, summed below the working precision)",
+	v, err := exactValue(fmt.Sprintf("h_%d", n), q, digits, "root of k_A(h) = 1 between its pole and zero: for n >= 1 in the two-Gamma form of k_A (reflection and duplication), bracketed in float64 and polished by Newton's method with rising precision, the higher precision started from the lower one's root; otherwise bisection and Newton on the four-Gamma form (within 1e-3 of an end in eps or x: the Taylor series there, summed below the working precision)",
 		func(q QPoint, prec uint) (*big.Float, error) {
 			h, sd, err := dimensionRoot(q, n, prec, seed)
 			seed = sd
