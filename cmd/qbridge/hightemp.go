@@ -43,7 +43,10 @@ singularity of log Z in the complex t plane is estimated from them: beyond
 beta script-J = sqrt(|t_c|) the series diverges (the Pade sum in t still
 converges where the singularity lies on the negative t axis). --beta B sums
 the quantity at beta script-J = B (beta J with --units J) by the partial sum
-and by Pade in t, each with its error.`,
+and by Pade in t, each with its error. --units J (integer q up to 4096)
+prints the coefficients of (beta J)^p, still exact: the factor is
+(q/2^(q-1))^(p/2), and (q/2^(q-1))^((p+1)/2) for the energy, always a
+whole power.`,
 	Example: `  qbridge hightemp logz --order 8
   qbridge hightemp cumulants --order 6 --q 4
   qbridge hightemp logz --order 30 --q 4 --beta 1
