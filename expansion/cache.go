@@ -342,6 +342,9 @@ type storedGround struct {
 	LadderLen         int       `json:"ladder_length"`
 	FitsPerOrder      []int     `json:"fits_per_order"`
 	TotalFitsPerOrder []int     `json:"total_fits_per_order"`
+	E0Route           []string  `json:"E_0_route"`
+	AlphaSRoute       []string  `json:"alpha_S_route"`
+	ZeroTMethod       string    `json:"zero_T_method,omitempty"`
 }
 
 // coeffJSON is a float64 series; encoding/json writes float64 values so
@@ -354,7 +357,8 @@ type coeffJSON struct {
 func storeGround(g *energy.GroundSeries) storedGround {
 	cj := func(c energy.Coeffs) coeffJSON { return coeffJSON{c.Values, c.Errors} }
 	return storedGround{Variable: g.Variable, E0: cj(g.E0), S0: cj(g.S0), AlphaS: cj(g.AlphaS), S0Exact: g.S0Exact,
-		BetaMin: g.BetaMin, BetaMax: g.BetaMax, LadderLen: len(g.Ladder), FitsPerOrder: g.FitsPerOrder, TotalFitsPerOrder: g.TotalFitsPerOrder}
+		BetaMin: g.BetaMin, BetaMax: g.BetaMax, LadderLen: len(g.Ladder), FitsPerOrder: g.FitsPerOrder, TotalFitsPerOrder: g.TotalFitsPerOrder,
+		E0Route: g.E0Route, AlphaSRoute: g.AlphaSRoute, ZeroTMethod: g.ZeroTMethod}
 }
 
 func (s storedGround) ground(variable string, order int) (*energy.GroundSeries, error) {
@@ -374,7 +378,11 @@ func (s storedGround) ground(variable string, order int) (*energy.GroundSeries, 
 	if len(s.S0Exact) != order+1 {
 		return nil, fmt.Errorf("%d exact S_0 coefficients, want %d", len(s.S0Exact), order+1)
 	}
+	if len(s.E0Route) != order+1 || len(s.AlphaSRoute) != order+1 {
+		return nil, fmt.Errorf("%d and %d coefficient routes, want %d", len(s.E0Route), len(s.AlphaSRoute), order+1)
+	}
 	co := func(c coeffJSON) energy.Coeffs { return energy.Coeffs{Values: c.Values, Errors: c.Errors} }
 	return &energy.GroundSeries{Variable: s.Variable, E0: co(s.E0), S0: co(s.S0), AlphaS: co(s.AlphaS), S0Exact: s.S0Exact,
-		BetaMin: s.BetaMin, BetaMax: s.BetaMax, FitsPerOrder: s.FitsPerOrder, TotalFitsPerOrder: s.TotalFitsPerOrder}, nil
+		BetaMin: s.BetaMin, BetaMax: s.BetaMax, FitsPerOrder: s.FitsPerOrder, TotalFitsPerOrder: s.TotalFitsPerOrder,
+		E0Route: s.E0Route, AlphaSRoute: s.AlphaSRoute, ZeroTMethod: s.ZeroTMethod}, nil
 }

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"math/big"
+	"strings"
 
 	"qbridge/expansion/conformal"
 	"qbridge/expansion/energy"
@@ -124,7 +125,11 @@ func (p energyProvider) Series(r Request) (*SeriesResult, error) {
 	if p.kind == energy.QuantityAlphaS {
 		c = g.AlphaS
 	}
-	notes, method := groundNotes(r.End, g)
+	route := g.E0Route
+	if p.kind == energy.QuantityAlphaS {
+		route = g.AlphaSRoute
+	}
+	notes, method := groundNotes(r.End, g, route)
 	coeffs := &conformal.Coefficients{Quantity: p.q.Name, End: r.End, N: -1, Values: bigs(c.Values), Errors: bigs(c.Errors), Method: method, Prec: 53}
 	return &SeriesResult{
 		Parts: []*conformal.Coefficients{coeffs},
@@ -177,7 +182,7 @@ func (p energyProvider) softSeries(r Request) (*SeriesResult, error) {
 		return nil, fmt.Errorf("%s around q = %s: %d coefficients from the alpha_S series of order %d, %d needed", p.q.Name, r.End, c.Len(), so, r.Order+1)
 	}
 	c = energy.Coeffs{Values: c.Values[:r.Order+1], Errors: c.Errors[:r.Order+1]}
-	notes, fit := groundNotes(r.End, g)
+	notes, fit := groundNotes(r.End, g, g.AlphaSRoute)
 	factor := map[string]string{
 		energy.QuantityAlphaK: "F_K = 6 q^2 alpha_0, alpha_0 = 2 pi q/((q-1)(q-2) tan(pi/q))",
 		energy.QuantityAlphaG: "F_G = 6 q^2 alpha_0/(-q k_A'(2)), k_A'(2) in closed form",
@@ -196,16 +201,33 @@ func (p energyProvider) softSeries(r Request) (*SeriesResult, error) {
 	}, nil
 }
 
-// groundNotes are the notes of a ground series and the method of its fits.
-func groundNotes(end conformal.End, g *energy.GroundSeries) ([]string, string) {
+// groundNotes are the notes of a ground series and the method of the
+// coefficients whose routes are given (g.E0Route or g.AlphaSRoute).
+func groundNotes(end conformal.End, g *energy.GroundSeries, route []string) ([]string, string) {
 	var notes []string
 	if end == conformal.AroundTwo {
 		notes = append(notes, "Perturbation theory of the SD equations in delta = q - 2 at finite beta (per-frequency algebraic solves, sources by pointwise series arithmetic), converted to eps by delta = 2 eps/(1-eps) on every grid, Richardson-extrapolated in the grid spacing.")
 	} else {
 		notes = append(notes, "G = (1/2) sgn(tau)[1 + g_1/q + ...]: g_1 the Liouville solution, each g_k from Liouville's fluctuation operator with local and non-local sources, at finite beta, Richardson-extrapolated in the grid spacing.")
 	}
-	method := fmt.Sprintf("low-temperature fits of log Z_k = -beta E_0k + S_0k + 2 pi^2 alpha_Sk/beta + corrections over %d temperatures, beta = %.4g..%.4g; errors = spread over fit windows and models + propagated data errors", len(g.Ladder), g.BetaMin, g.BetaMax)
-	notes = append(notes, method+".", "log Z is evaluated from the converged G and Sigma at every order (the stationarity of log Z is not used).")
+	ladder := fmt.Sprintf("low-temperature fits of log Z_k = -beta E_0k + S_0k + 2 pi^2 alpha_Sk/beta + corrections over %d temperatures, beta = %.4g..%.4g; errors = spread over fit windows and models + propagated data errors", len(g.Ladder), g.BetaMin, g.BetaMax)
+	notes = append(notes, ladder+".", "log Z is evaluated from the converged G and Sigma at every order (the stationarity of log Z is not used).")
+	var zt, fit []string
+	for k, r := range route {
+		if r == energy.RouteZeroT {
+			zt = append(zt, fmt.Sprint(k))
+		} else {
+			fit = append(fit, fmt.Sprint(k))
+		}
+	}
+	if len(zt) == 0 {
+		return notes, ladder
+	}
+	notes = append(notes, "Each coefficient comes from the route that states the smaller error: the finite-T ladder or the zero-temperature eps-series ("+g.ZeroTMethod+").")
+	method := fmt.Sprintf("orders %s: %s", strings.Join(zt, ","), g.ZeroTMethod)
+	if len(fit) > 0 {
+		method += fmt.Sprintf("; orders %s: %s", strings.Join(fit, ","), ladder)
+	}
 	return notes, method
 }
 

@@ -27,7 +27,28 @@ type GroundSeries struct {
 	BetaMin, BetaMax  float64       // range of the ladder
 	FitsPerOrder      []int         // accepted fits per order
 	TotalFitsPerOrder []int         // fits tried per order
+	// E0Route and AlphaSRoute say, per coefficient, which route gave it:
+	// RouteLadder (the low-temperature fits) or RouteZeroT (the
+	// zero-temperature eps-series, EpsZeroT), whichever states the smaller
+	// error; ZeroTMethod describes the latter when it was used.
+	E0Route, AlphaSRoute []string
+	ZeroTMethod          string
+	// LadderE0 and LadderAlphaS keep the ladder's own coefficients when
+	// the zero-temperature route was merged in (not kept by the cache).
+	LadderE0, LadderAlphaS Coeffs
+	ZeroT                  *ZeroTEps
 }
+
+// Routes of a ground-series coefficient.
+const (
+	RouteLadder = "finite-T ladder"
+	RouteZeroT  = "T = 0 eps-series"
+)
+
+// MaxZeroTEpsOrder is the highest order of the zero-temperature
+// eps-series that EpsGround merges in: beyond it the float64 coefficients
+// carry no digits the ladder lacks.
+const MaxZeroTEpsOrder = 14
 
 // S0Deviation returns, per order, (fitted - exact)/error of S_0: the
 // built-in test of the whole chain (grid, Richardson, fits).
@@ -165,7 +186,48 @@ func groundAroundTwo(p GroundParams, eps bool) (*GroundSeries, error) {
 	if err != nil {
 		return nil, err
 	}
+	g.E0Route = routes(p.Order+1, RouteLadder)
+	g.AlphaSRoute = routes(p.Order+1, RouteLadder)
+	if eps {
+		z, err := EpsZeroT(min(p.Order+1, MaxZeroTEpsOrder), p.Progress)
+		if err != nil {
+			return nil, err
+		}
+		g.mergeZeroT(z)
+	}
 	return g, nil
+}
+
+func routes(n int, r string) []string {
+	out := make([]string, n)
+	for i := range out {
+		out[i] = r
+	}
+	return out
+}
+
+// mergeZeroT takes, per coefficient of E_0 and alpha_S, the
+// zero-temperature value where its stated error is the smaller.
+func (g *GroundSeries) mergeZeroT(z *ZeroTEps) {
+	cp := func(c Coeffs) Coeffs {
+		return Coeffs{Values: append([]float64(nil), c.Values...), Errors: append([]float64(nil), c.Errors...)}
+	}
+	g.LadderE0, g.LadderAlphaS, g.ZeroT = cp(g.E0), cp(g.AlphaS), z
+	used := false
+	take := func(dst *Coeffs, src Coeffs, route []string) {
+		for l := 0; l < dst.Len() && l < src.Len(); l++ {
+			if src.Errors[l] < dst.Errors[l] {
+				dst.Values[l], dst.Errors[l] = src.Values[l], src.Errors[l]
+				route[l] = RouteZeroT
+				used = true
+			}
+		}
+	}
+	take(&g.E0, z.E0, g.E0Route)
+	take(&g.AlphaS, z.AlphaS, g.AlphaSRoute)
+	if used {
+		g.ZeroTMethod = z.Method
+	}
 }
 
 // groundFromLadder fits every order of the ladder's series.
@@ -273,5 +335,7 @@ func InvQGround(p GroundParams) (*GroundSeries, error) {
 	if err != nil {
 		return nil, err
 	}
+	g.E0Route = routes(p.Order+1, RouteLadder)
+	g.AlphaSRoute = routes(p.Order+1, RouteLadder)
 	return g, nil
 }

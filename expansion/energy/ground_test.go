@@ -41,8 +41,41 @@ func TestDeltaGroundS0AndFreeFermion(t *testing.T) {
 			t.Errorf("%s at q = 2: %.14g ± %.1e, exact %.14g", f.name, f.c.Values[0], f.c.Errors[0], f.want)
 		}
 	}
+	// The zero-temperature eps-series (merged into ge where its error is
+	// the smaller): order 0 is the free fermion again, alpha_S(2) =
+	// 1/(24 pi) now to 1e-12 (the q = 2 specific heat C = pi T/(6J),
+	// PHYSICS sec. 5, is 4 pi^2 alpha_S T), and the two independent routes
+	// (T = 0 solve vs finite-T ladder) agree within their combined errors
+	// at every order.
+	z := ge.ZeroT
+	if z == nil {
+		t.Fatal("EpsGround did not run the zero-temperature route")
+	}
+	if d := math.Abs(z.E0.Values[0] + 2/(3*math.Pi)); d > z.E0.Errors[0] || d > 1e-14 {
+		t.Errorf("T = 0 route E_0(2) = %.16g ± %.1e, exact %.16g", z.E0.Values[0], z.E0.Errors[0], -2/(3*math.Pi))
+	}
+	if d := math.Abs(z.AlphaS.Values[0] - 1/(24*math.Pi)); d > z.AlphaS.Errors[0] || d > 1e-12 {
+		t.Errorf("T = 0 route alpha_S(2) = %.16g ± %.1e, exact %.16g (off by %.1e)", z.AlphaS.Values[0], z.AlphaS.Errors[0], 1/(24*math.Pi), d)
+	}
 	for k := 0; k <= order; k++ {
-		t.Logf("eps^%d: E0 %.12g ± %.1e  alpha %.10g ± %.1e  S0 %.10g ± %.1e (exact %.10g)", k,
-			ge.E0.Values[k], ge.E0.Errors[k], ge.AlphaS.Values[k], ge.AlphaS.Errors[k], ge.S0.Values[k], ge.S0.Errors[k], ge.S0Exact[k])
+		for _, c := range []struct {
+			name    string
+			zt, lad Coeffs
+		}{{"E_0", z.E0, ge.LadderE0}, {"alpha_S", z.AlphaS, ge.LadderAlphaS}} {
+			if k >= c.zt.Len() {
+				continue
+			}
+			d := math.Abs(c.zt.Values[k] - c.lad.Values[k])
+			if d > 3*(c.zt.Errors[k]+c.lad.Errors[k]) {
+				t.Errorf("%s eps^%d: T = 0 route %.12g ± %.1e vs ladder %.12g ± %.1e", c.name, k, c.zt.Values[k], c.zt.Errors[k], c.lad.Values[k], c.lad.Errors[k])
+			}
+		}
+		if ge.E0.Errors[k] > ge.LadderE0.Errors[k] || ge.AlphaS.Errors[k] > ge.LadderAlphaS.Errors[k] {
+			t.Errorf("eps^%d: the merged series has a larger error than the ladder's", k)
+		}
+	}
+	for k := 0; k <= order; k++ {
+		t.Logf("eps^%d: E0 %.14g ± %.1e (%s)  alpha %.12g ± %.1e (%s)  S0 %.10g ± %.1e (exact %.10g)", k,
+			ge.E0.Values[k], ge.E0.Errors[k], ge.E0Route[k], ge.AlphaS.Values[k], ge.AlphaS.Errors[k], ge.AlphaSRoute[k], ge.S0.Values[k], ge.S0.Errors[k], ge.S0Exact[k])
 	}
 }
