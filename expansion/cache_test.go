@@ -202,7 +202,8 @@ func TestStoredGroundRoundTrip(t *testing.T) {
 		E0:      coeffJSON{[]float64{-0.2122065907892921, 0.1 / 3}, []float64{1e-15, 2.5e-13}},
 		S0:      coeffJSON{[]float64{0, 0.3}, []float64{1e-12, 1e-11}},
 		AlphaS:  coeffJSON{[]float64{0.01326291192432, 1.0 / 7}, []float64{1e-9, 1e-8}},
-		S0Exact: []float64{0, 0.3}}
+		S0Exact: []float64{0, 0.3},
+		E0Route: []string{"T = 0 eps-series", "finite-T ladder"}, AlphaSRoute: []string{"T = 0 eps-series", "T = 0 eps-series"}, ZeroTMethod: "zero-T"}
 	raw, err := json.Marshal(g)
 	if err != nil {
 		t.Fatal(err)

@@ -48,8 +48,22 @@ func newTwoPointSet(sa *series.Series, a *big.Float, sb *series.Series, b *big.F
 	if lo.Cmp(hi) > 0 {
 		lo, hi = hi, lo
 	}
+	// As in ResumTwoPoint: the window of the top orders steps down until
+	// it holds two pole-free entries.
+	var set *twoPointSet
+	for top := n0; top >= 2 && top >= 2*minK; top-- {
+		set = scanTwoPoint(sa, a, sb, b, top, orders, diag, minK, margin, dtol, lo, hi, prec)
+		if len(set.ok) >= 2 {
+			break
+		}
+	}
+	return set, nil
+}
+
+// scanTwoPoint scans the total orders top down to top - orders + 1.
+func scanTwoPoint(sa *series.Series, a *big.Float, sb *series.Series, b *big.Float, top, orders, diag, minK int, margin, dtol, lo, hi *big.Float, prec uint) *twoPointSet {
 	set := &twoPointSet{prec: prec}
-	for n := n0; n > n0-orders && n >= 2; n-- {
+	for n := top; n > top-orders && n >= 2; n-- {
 		for k1 := minK; k1 <= n-minK; k1++ {
 			k2 := n - k1
 			if k1 > sa.Len() || k2 > sb.Len() {
@@ -73,7 +87,7 @@ func newTwoPointSet(sa *series.Series, a *big.Float, sb *series.Series, b *big.F
 			}
 		}
 	}
-	return set, nil
+	return set
 }
 
 // at evaluates the set at x (0 <= x <= 1/2) and selects as ResumTwoPoint.

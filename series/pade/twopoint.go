@@ -200,7 +200,9 @@ type TwoPointOptions struct {
 // opts.Orders total orders K1+K2 it tries every split with K1, K2 >= MinK
 // (and within the series' lengths) and every [L/M] with L+M+1 = K1+K2 and
 // |L-M| <= Diag, keeping those with no pole (other than doublets) near the
-// segment spanned by a, b and x. Value is the median of the kept entries of
+// segment spanned by a, b and x; when those orders keep fewer than two
+// entries, the window of opts.Orders orders steps down one total order at a
+// time until it keeps two. Value is the median of the kept entries of
 // the highest order that has any; Err is the largest deviation of any kept
 // entry of the scanned orders from Value (at least 2^-(prec-8) |Value|), a
 // deliberately conservative spread.
@@ -246,7 +248,34 @@ func ResumTwoPoint(sa *series.Series, a *big.Float, sb *series.Series, b *big.Fl
 	lo, hi := twoPointHull(a, b, x)
 	tableOpts := PadeTableOptions{PoleMargin: o.PoleMargin, DoubletTol: o.DoubletTol}
 	var entries []PadeEntry
-	for n := o.N; n > o.N-o.Orders && n >= 2; n-- {
+	// The top o.Orders total orders first; where they hold fewer than two
+	// pole-free entries, the window of o.Orders orders steps down one order
+	// at a time (noisy high coefficients can put a pole near the segment
+	// into every top entry).
+	for top := o.N; top >= 2 && top >= 2*o.MinK; top-- {
+		entries = twoPointScan(sa, a, sb, b, x, o, top, lo, hi, tableOpts, prec)
+		if countOK(entries) >= 2 {
+			break
+		}
+	}
+	return twoPointSelect(entries, x, prec)
+}
+
+func countOK(entries []PadeEntry) int {
+	n := 0
+	for _, e := range entries {
+		if e.OK {
+			n++
+		}
+	}
+	return n
+}
+
+// twoPointScan builds and checks the entries of total orders top down to
+// top - o.Orders + 1.
+func twoPointScan(sa *series.Series, a *big.Float, sb *series.Series, b *big.Float, x *big.Float, o TwoPointOptions, top int, lo, hi *big.Float, tableOpts PadeTableOptions, prec uint) []PadeEntry {
+	var entries []PadeEntry
+	for n := top; n > top-o.Orders && n >= 2; n-- {
 		for K1 := o.MinK; K1 <= n-o.MinK; K1++ {
 			K2 := n - K1
 			if K1 > sa.Len() || K2 > sb.Len() {
@@ -269,7 +298,7 @@ func ResumTwoPoint(sa *series.Series, a *big.Float, sb *series.Series, b *big.Fl
 			}
 		}
 	}
-	return twoPointSelect(entries, x, prec)
+	return entries
 }
 
 // twoPointHull returns the smallest and largest of the three points.
