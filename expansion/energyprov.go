@@ -324,11 +324,9 @@ func normalisedName(p int, name string) string {
 	return fmt.Sprintf("q^%d %s", p, name)
 }
 
-// directMethod describes the direct reference of E_0 and alpha_S.
-const directMethod = "direct Schwinger-Dyson solver: ladder of solves in beta and joint low-temperature fits of log Z and E"
-
 // reference is the value a resummation is compared with: the direct
-// solver's ground ladder (energy.DirectGround) for E_0 and alpha_S, its
+// solver (energy.DirectGround: ground ladder or T = 0 route, whichever is
+// more accurate) for E_0 and alpha_S, its
 // zero-temperature route (energy.DirectSoftMode) for alpha_G and alpha_K,
 // whose q = 2 values are the exact limits alpha_K = pi, alpha_G = 0.
 func (p energyProvider) reference(q float64, progress func(float64, string)) (*Reference, error) {
@@ -337,11 +335,11 @@ func (p energyProvider) reference(q float64, progress func(float64, string)) (*R
 		if err != nil {
 			return nil, err
 		}
-		dv, de := d.E0, d.E0Err
+		dv, de, m := d.E0, d.E0Err, d.E0Method
 		if p.kind == energy.QuantityAlphaS {
-			dv, de = d.AlphaS, d.AlphaSErr
+			dv, de, m = d.AlphaS, d.AlphaSErr, d.AlphaSMethod
 		}
-		return &Reference{Value: big.NewFloat(dv), Err: big.NewFloat(de), Kind: "direct", Method: directMethod}, nil
+		return &Reference{Value: big.NewFloat(dv), Err: big.NewFloat(de), Kind: "direct", Method: m}, nil
 	}
 	if q == 2 {
 		return softLimitAtTwo(p.kind), nil

@@ -385,14 +385,14 @@ func (c *tableColumn) cell(src string, q conformal.QPoint, digits int) TableCell
 		if err != nil {
 			return TableCell{Missing: "failed: " + err.Error(), Failed: true}
 		}
-		v, e := d.E0, d.E0Err
+		v, e, m := d.E0, d.E0Err, d.E0Method
 		switch c.Name {
 		case S0:
-			v, e = d.S0, d.S0Err
+			v, e, m = d.S0, d.S0Err, energy.DirectLadderMethod
 		case AlphaS:
-			v, e = d.AlphaS, d.AlphaSErr
+			v, e, m = d.AlphaS, d.AlphaSErr, d.AlphaSMethod
 		}
-		return floatCell(v, e, "direct Schwinger-Dyson solver: ground ladder and joint low-temperature fits", "the fits gave no spread")
+		return floatCell(v, e, m, "the fits gave no spread")
 	}
 	return TableCell{Missing: "unknown source " + src, Failed: true}
 }

@@ -61,7 +61,7 @@ func TestOneDirectValueEverywhere(t *testing.T) {
 				"report": reported[name],
 			}
 			if name == "E_0" || name == "alpha_S" {
-				vals["ground"] = g[name].(string)
+				vals["ground"] = g["direct"].(map[string]any)[name].(string)
 			}
 			for where, v := range vals {
 				if v != vals["resum"] {

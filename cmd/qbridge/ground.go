@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"strconv"
+	"strings"
 
 	"github.com/spf13/cobra"
 
@@ -29,6 +30,10 @@ log Z = -beta E_0 + S_0 + 2 pi^2 alpha_S T + sum_k c_k T^{p_k}
 over several windows and orders. Values are medians of the accepted fits,
 errors half their spread plus the typical statistical error. The exact S_0
 (Kitaev's integral) is printed beside the fitted one as a check.
+With the default ladder a last table gives the direct values that resum,
+report and table print: per quantity the more accurate of this ladder and
+the zero-temperature solve (alpha_G measured on G/G_c at T = 0,
+alpha_S = alpha_K/(6 q^2 alpha_0); at q = 4 about 1e-12 against 5e-9).
 Units script-J = 1; with --units J, E_0 is printed in units of J, alpha_S
 as the coefficient of 1/J, and --beta-max, --beta-min are beta J (the
 default ladder is the same in both units: its values are those of resum,
@@ -79,17 +84,30 @@ func runGround(cmd *cobra.Command, args []string) error {
 	}
 	lp.Steps = fl.Steps
 	g, err := energy.Ground(lp)
-	pr.Done()
 	if errors.Is(err, numeric.ErrInput) {
+		pr.Done()
 		return usageErr("%v", err)
 	}
 	if err != nil {
+		pr.Done()
 		return err
 	}
-	return emit(cmd, groundOutput(g))
+	// With the default ladder, also the direct values that resum, report
+	// and table print (the more accurate of this ladder and the T = 0
+	// route, energy.DirectGround).
+	var d *energy.Direct
+	if !cmd.Flags().Changed("beta-max") && !cmd.Flags().Changed("beta-min") && !cmd.Flags().Changed("steps") {
+		d, err = energy.DirectGround(fl.Q, pr.Update)
+		if err != nil {
+			pr.Done()
+			return err
+		}
+	}
+	pr.Done()
+	return emit(cmd, groundOutput(g, d))
 }
 
-func groundOutput(g *numeric.Ground) *Output {
+func groundOutput(g *numeric.Ground, direct *energy.Direct) *Output {
 	d := min(opts.Digits, 15) // float64 solves
 	// Units (expansion.Units): E_0 times fe, alpha_S times fa, beta times
 	// fb = 1/r (beta J = beta script-J / r), a fit coefficient of T^p times
@@ -142,7 +160,7 @@ func groundOutput(g *numeric.Ground) *Output {
 		"fits":     fits,
 		"units":    unitsStatement(),
 	}
-	return &Output{
+	out := &Output{
 		JSON: js,
 		Tables: []Table{
 			{
@@ -165,4 +183,28 @@ func groundOutput(g *numeric.Ground) *Output {
 			unitsNote() + "; JSON fit coefficients coef are those of T^p with T in the same units",
 		},
 	}
+	if direct != nil {
+		js["direct"] = map[string]any{
+			"E_0": fmtFloat(direct.E0*fe, d), "E_0_err": fmtErr64(direct.E0Err * fe), "E_0_method": direct.E0Method,
+			"alpha_S": fmtFloat(direct.AlphaS*fa, d), "alpha_S_err": fmtErr64(direct.AlphaSErr * fa), "alpha_S_method": direct.AlphaSMethod,
+		}
+		out.Tables = append(out.Tables, Table{
+			Title:  "direct values (as printed by resum, report and table: per quantity the more accurate of this ladder and the T = 0 route)",
+			Header: []string{"quantity", "value", "error", "route"},
+			Rows: [][]string{
+				{"E_0", fmtFloat(direct.E0*fe, d), fmtErr64(direct.E0Err * fe), routeName(direct.E0Method)},
+				{"alpha_S", fmtFloat(direct.AlphaS*fa, d), fmtErr64(direct.AlphaSErr * fa), routeName(direct.AlphaSMethod)},
+			},
+		})
+		out.Notes = append(out.Notes, "direct E_0: "+direct.E0Method, "direct alpha_S: "+direct.AlphaSMethod)
+	}
+	return out
+}
+
+// routeName is the short name of a direct value's route.
+func routeName(method string) string {
+	if strings.HasPrefix(method, energy.DirectZeroTMethod) {
+		return "T = 0 solve"
+	}
+	return "this ladder"
 }

@@ -10,26 +10,63 @@ import (
 	"qbridge/numeric"
 )
 
-// Direct is the low-temperature data of the direct Schwinger-Dyson solver
-// (numeric.Ladder and numeric.FitGround) at one q.
+// Direct is the direct numerical value of E_0 and alpha_S at one q: per
+// quantity the more accurate of the direct solver's low-temperature ladder
+// (numeric.Ladder and numeric.FitGround) and its zero-temperature route
+// (DirectSoftMode), and the fitted S_0 of the ladder.
 type Direct struct {
 	Q                 float64 // interaction order
 	E0, E0Err         float64 // ground-state energy per fermion and its error
 	S0, S0Err         float64 // fitted zero-temperature entropy and its error
 	AlphaS, AlphaSErr float64 // Schwarzian coefficient and its error
+	// E0Method and AlphaSMethod say which route gave the value.
+	E0Method, AlphaSMethod string
+	// Ladder is the finite-temperature ladder's own result (the ground
+	// command prints its fits).
+	Ladder *numeric.Ground
 }
+
+// Methods of the direct values.
+const (
+	DirectLadderMethod = "direct Schwinger-Dyson solver: ladder of solves in beta and joint low-temperature fits of log Z and E"
+	DirectZeroTMethod  = "direct zero-temperature Schwinger-Dyson route: "
+)
 
 // DirectGround runs the direct solver on the default low-temperature ladder
 // (numeric.GroundLadder: beta*script-J from 25 to 4000 in 24 solves, 64
 // points per unit of beta, residual 1e-14) and its fits at q, through
-// Ground: the ground command, report and resum see the same numbers, and a
-// second call at the same q (E_0, then alpha_S) does not solve again.
+// Ground, and for q > 2 the zero-temperature route (DirectSoftMode), and
+// takes per quantity the value with the smaller error (at q = 4 the T = 0
+// route states 1.1e-12 for alpha_S, the ladder 4.7e-9). The ground
+// command, report, table and resum see the same numbers, and a second
+// call at the same q does not solve again.
 func DirectGround(q float64, progress func(float64, string)) (*Direct, error) {
 	g, err := Ground(numeric.GroundLadder(q, 0, progress))
 	if err != nil {
 		return nil, fmt.Errorf("direct solver at q=%g: %w", q, err)
 	}
-	return &Direct{Q: q, E0: g.E0, E0Err: g.E0Err, S0: g.S0, S0Err: g.S0Err, AlphaS: g.AlphaS, AlphaSErr: g.AlphaSErr}, nil
+	d := &Direct{Q: q, E0: g.E0, E0Err: g.E0Err, S0: g.S0, S0Err: g.S0Err, AlphaS: g.AlphaS, AlphaSErr: g.AlphaSErr,
+		E0Method: DirectLadderMethod, AlphaSMethod: DirectLadderMethod, Ladder: g}
+	if checkSoftModeQ(q) != nil {
+		return d, nil
+	}
+	z, err := DirectSoftMode(q, progress)
+	if err != nil {
+		// The ladder's values stand; say why the other route is missing.
+		why := fmt.Sprintf(" (the zero-temperature route failed at q=%g: %v)", q, err)
+		d.E0Method += why
+		d.AlphaSMethod += why
+		return d, nil
+	}
+	if z.AlphaSErr < d.AlphaSErr {
+		d.AlphaS, d.AlphaSErr = z.AlphaS, z.AlphaSErr
+		d.AlphaSMethod = DirectZeroTMethod + z.MethodS + "; " + z.MethodG
+	}
+	if z.E0Err < d.E0Err {
+		d.E0, d.E0Err = z.E0, z.E0Err
+		d.E0Method = DirectZeroTMethod + "E_0 = -(2 script-J^2/q) int_0^inf G^q dtau from the T = 0 solution; " + z.MethodG
+	}
+	return d, nil
 }
 
 // conformalDigits is the precision of the conformal data handed to the
