@@ -37,3 +37,12 @@ func BenchmarkSolveGroundQ4(b *testing.B) {
 		}
 	}
 }
+
+// The zero-temperature eps-series to order 10 on the default grid.
+func BenchmarkSolveZeroTEpsOrder10(b *testing.B) {
+	for i := 0; i < b.N; i++ {
+		if _, err := SolveZeroTEps(EpsSeriesParams{Order: 10}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

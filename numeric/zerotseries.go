@@ -210,11 +210,13 @@ type epsMap struct {
 	// (2/q) w/(w^2+1) added back: the tilt tau^{1+eps-Tilt} of that
 	// transform has eps-coefficients growing like |log tau|^k/k! at the UV
 	// end of the grid, where the tilted remainder must be small.
-	sModel     []float64 // series of (1/q) e^{-tau} tau^{1+eps-Tilt}
-	sigModel   []float64 // series of w^{-eps} (2/q) w/(w^2+1)
-	bufA, bufB []float64
-	coef       [][]complex128 // per order, the Fourier coefficients
-	tmp        [6][]float64
+	sModel       []float64 // series of (1/q) e^{-tau} tau^{1+eps-Tilt}
+	sigModel     []float64 // series of w^{-eps} (2/q) w/(w^2+1)
+	bufA, bufB   []float64
+	sigT         []float64      // the first transform's output, all orders
+	coefS, coefG [][]complex128 // per order, the Fourier coefficients of the two transforms' inputs
+	coefTmp      []complex128
+	tmp          [6][]float64
 }
 
 func newEpsMap(p ZeroTParams, k int) (*epsMap, error) {
@@ -249,11 +251,13 @@ func newEpsMap(p ZeroTParams, k int) (*epsMap, error) {
 	if k > 1 {
 		invq[1] = -0.5
 	}
-	m.bufA, m.bufB = mk(n*k), mk(n*k)
-	m.coef = make([][]complex128, k)
-	for i := range m.coef {
-		m.coef[i] = make([]complex128, n/2+1)
+	m.bufA, m.bufB, m.sigT = mk(n*k), mk(n*k), mk(n*k)
+	m.coefS, m.coefG = make([][]complex128, k), make([][]complex128, k)
+	for i := range m.coefS {
+		m.coefS[i] = make([]complex128, n/2+1)
+		m.coefG[i] = make([]complex128, n/2+1)
 	}
+	m.coefTmp = make([]complex128, n/2+1)
 	for i := range m.tmp {
 		m.tmp[i] = mk(k)
 	}
@@ -325,40 +329,37 @@ func (m *epsMap) setAt(a []float64, i int, v []float64) {
 	}
 }
 
-// sine applies the series-valued sine transform with the weights kern.
-func (m *epsMap) sine(dst, src []float64, kern [][]complex128, k int) {
+// sineTop applies the series-valued sine transform with the weights kern
+// to order top of src: it transforms that order into coef[top] and sets
+// order top of dst from coef[0..top], whose lower orders hold the
+// transforms of earlier calls (the orders below top are fixed while order
+// top iterates, so only one FFT pair per call is needed).
+func (m *epsMap) sineTop(dst, src []float64, kern, coef [][]complex128, top int) {
 	n := m.n
-	for j := 0; j < k; j++ {
-		m.grid.fft.Coefficients(m.coef[j], src[j*n:(j+1)*n])
-	}
+	m.grid.fft.Coefficients(coef[top], src[top*n:(top+1)*n])
 	h := n / 2
-	var acc [MaxEpsSeriesOrder + 1]complex128
+	c := m.coefTmp
 	for mode := 0; mode <= h; mode++ {
 		w := kern[mode]
-		for j := 0; j < k; j++ {
-			var s complex128
-			for l := 0; l <= j; l++ {
-				s += m.coef[l][mode] * w[j-l]
-			}
-			acc[j] = s
+		var s complex128
+		for l := 0; l <= top; l++ {
+			s += coef[l][mode] * w[top-l]
 		}
-		for j := 0; j < k; j++ {
-			v := cmplx.Conj(acc[j])
-			if mode == h {
-				v = complex(real(v), 0)
-			}
-			m.coef[j][mode] = v
+		v := cmplx.Conj(s)
+		if mode == h {
+			v = complex(real(v), 0)
 		}
+		c[mode] = v
 	}
-	for j := 0; j < k; j++ {
-		m.grid.fft.Sequence(dst[j*n:(j+1)*n], m.coef[j])
-	}
+	m.grid.fft.Sequence(dst[top*n:(top+1)*n], c)
 }
 
-// apply sets out to the map of gt (both coefficient-major of grid length;
-// the conformal tail of out is set to B), for the orders below k.
+// apply sets order k-1 of out to that order of the map of gt (both
+// coefficient-major of grid length; the conformal tail is B). The orders
+// below k-1 of gt must be those of the previous calls: their transforms
+// are reused.
 func (m *epsMap) apply(out, gt []float64, k int) {
-	n := m.n
+	n, top := m.n, k-1
 	g, lg, pw, s := m.tmp[0][:k], m.tmp[1][:k], m.tmp[2][:k], m.tmp[3][:k]
 	for i := 0; i < n; i++ {
 		m.at(gt, i, g)
@@ -366,36 +367,30 @@ func (m *epsMap) apply(out, gt []float64, k int) {
 		fsMulInto(pw, m.c.qm1[:k], lg)
 		fsExpInto(lg, pw)
 		fsMulInto(s, m.c.j2[:k], lg)
-		for j := range s {
-			s[j] = s[j]*m.tiltS[i] - m.sModel[j*n+i]
-		}
-		m.setAt(m.bufA, i, s)
+		m.bufA[top*n+i] = s[top]*m.tiltS[i] - m.sModel[top*n+i]
 	}
-	m.sine(m.bufB, m.bufA, m.kernS, k)
-	den, gt2, mod := m.tmp[0][:k], m.tmp[1][:k], m.tmp[2][:k]
+	m.sineTop(m.sigT, m.bufA, m.kernS, m.coefS, top)
+	den, gt2 := m.tmp[0][:k], m.tmp[1][:k]
 	for i := 0; i < n; i++ {
+		var v float64
 		if i < m.freqPin {
-			copy(gt2, m.c.gtc)
+			v = m.c.gtc[top]
 		} else {
 			m.at(m.w2d, i, den)
 			for j := 0; j < k; j++ {
-				den[j] += m.bufB[j*n+i]*m.sigOut[i] + m.sigModel[j*n+i]
+				den[j] += m.sigT[j*n+i]*m.sigOut[i] + m.sigModel[j*n+i]
 			}
 			fsInvInto(gt2, den)
+			v = gt2[top]
 		}
-		m.at(m.gModel, i, mod)
-		for j := 0; j < k; j++ {
-			m.bufA[j*n+i] = (gt2[j] - mod[j]) * m.gIn[i]
-		}
+		m.bufA[top*n+i] = (v - m.gModel[top*n+i]) * m.gIn[i]
 	}
-	m.sine(m.bufB, m.bufA, m.kernG, k)
-	for j := 0; j < k; j++ {
-		for i := 0; i < m.free; i++ {
-			out[j*n+i] = m.bufB[j*n+i]*m.gOut[i] + m.gtModel[j*n+i]
-		}
-		for i := m.free; i < n; i++ {
-			out[j*n+i] = m.c.b[j]
-		}
+	m.sineTop(m.bufB, m.bufA, m.kernG, m.coefG, top)
+	for i := 0; i < m.free; i++ {
+		out[top*n+i] = m.bufB[top*n+i]*m.gOut[i] + m.gtModel[top*n+i]
+	}
+	for i := m.free; i < n; i++ {
+		out[top*n+i] = m.c.b[top]
 	}
 }
 
@@ -518,6 +513,9 @@ func SolveZeroTEps(p EpsSeriesParams) (*ZeroTEpsSeries, error) {
 			return nil, fmt.Errorf("numeric: zero-temperature eps-series iteration did not converge at order %d (%d points): residual %.3g after %d iterations (tolerance %.3g)", j, n, bestRes, it-1, gp.Tol)
 		}
 		copy(row, x)
+		// Refresh the transforms of this order for the state kept: the
+		// next orders reuse them.
+		m.apply(out, full, j+1)
 		sol.Iterations += it
 		sol.Residual = math.Max(sol.Residual, res)
 		sol.OrderResidual = append(sol.OrderResidual, res)

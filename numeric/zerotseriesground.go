@@ -5,6 +5,7 @@ import (
 	"math"
 	"sort"
 	"strings"
+	"sync"
 )
 
 // ZeroTEpsGround is the zero-temperature extraction of alpha_G and E_0 as
@@ -70,7 +71,13 @@ func SolveZeroTEpsGround(p EpsSeriesParams, dims [][]float64) (*ZeroTEpsGround, 
 		return nil, fmt.Errorf("%w: the zero-temperature fits need at least h_1", ErrInput)
 	}
 	k := p.Order + 1
-	var sols []*ZeroTEpsSeries
+	// The two solves are independent: one goroutine each (progress, when
+	// given, is serialised and shows their mean).
+	var mu sync.Mutex
+	frac := [2]float64{}
+	sols := make([]*ZeroTEpsSeries, 2)
+	errs := make([]error, 2)
+	var wg sync.WaitGroup
 	for i, v := range []ZeroTParams{p.Grid, epsVariant} {
 		pv := p
 		if i == 1 {
@@ -78,13 +85,24 @@ func SolveZeroTEpsGround(p EpsSeriesParams, dims [][]float64) (*ZeroTEpsGround, 
 		}
 		if p.Grid.Progress != nil {
 			i := i
-			pv.Grid.Progress = func(f float64, d string) { p.Grid.Progress((float64(i)+f)/2, d) }
+			pv.Grid.Progress = func(f float64, d string) {
+				mu.Lock()
+				defer mu.Unlock()
+				frac[i] = f
+				p.Grid.Progress((frac[0]+frac[1])/2, d)
+			}
 		}
-		s, err := SolveZeroTEps(pv)
+		wg.Add(1)
+		go func(i int, pv EpsSeriesParams) {
+			defer wg.Done()
+			sols[i], errs[i] = SolveZeroTEps(pv)
+		}(i, pv)
+	}
+	wg.Wait()
+	for _, err := range errs {
 		if err != nil {
 			return nil, err
 		}
-		sols = append(sols, s)
 	}
 	a, b := sols[0], sols[1]
 	g := &ZeroTEpsGround{Solutions: sols}
