@@ -365,8 +365,10 @@ func (s storedGround) ground(variable string, order int) (*energy.GroundSeries, 
 	if s.Variable != variable {
 		return nil, fmt.Errorf("variable %q, want %q", s.Variable, variable)
 	}
-	for _, c := range []coeffJSON{s.E0, s.S0, s.AlphaS} {
-		if len(c.Values) != order+1 || len(c.Errors) != order+1 {
+	for i, c := range []coeffJSON{s.E0, s.S0, s.AlphaS} {
+		// S_0 holds the ladder's fitted orders only (all, unless the fits
+		// failed and the zero-temperature route completed E_0 and alpha_S).
+		if len(c.Errors) != len(c.Values) || (i != 1 && len(c.Values) != order+1) || (i == 1 && (len(c.Values) < 1 || len(c.Values) > order+1)) {
 			return nil, fmt.Errorf("%d coefficients and %d errors, want %d", len(c.Values), len(c.Errors), order+1)
 		}
 		for i := range c.Values {
@@ -384,5 +386,5 @@ func (s storedGround) ground(variable string, order int) (*energy.GroundSeries, 
 	co := func(c coeffJSON) energy.Coeffs { return energy.Coeffs{Values: c.Values, Errors: c.Errors} }
 	return &energy.GroundSeries{Variable: s.Variable, E0: co(s.E0), S0: co(s.S0), AlphaS: co(s.AlphaS), S0Exact: s.S0Exact,
 		BetaMin: s.BetaMin, BetaMax: s.BetaMax, FitsPerOrder: s.FitsPerOrder, TotalFitsPerOrder: s.TotalFitsPerOrder,
-		E0Route: s.E0Route, AlphaSRoute: s.AlphaSRoute, ZeroTMethod: s.ZeroTMethod}, nil
+		E0Route: s.E0Route, AlphaSRoute: s.AlphaSRoute, ZeroTMethod: s.ZeroTMethod, LadderOrders: len(s.S0.Values)}, nil
 }

@@ -224,6 +224,9 @@ func groundNotes(end conformal.End, g *energy.GroundSeries, route []string) ([]s
 		return notes, ladder
 	}
 	notes = append(notes, "Each coefficient comes from the route that states the smaller error: the finite-T ladder or the zero-temperature eps-series ("+g.ZeroTMethod+").")
+	if g.LadderOrders < len(route) {
+		notes = append(notes, fmt.Sprintf("The ladder's low-temperature fits fail from order %d on; those coefficients come from the zero-temperature eps-series alone, and the S_0 check covers orders 0..%d.", g.LadderOrders, g.LadderOrders-1))
+	}
 	method := fmt.Sprintf("orders %s: %s", strings.Join(zt, ","), g.ZeroTMethod)
 	if len(fit) > 0 {
 		method += fmt.Sprintf("; orders %s: %s", strings.Join(fit, ","), ladder)

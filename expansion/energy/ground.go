@@ -1,6 +1,7 @@
 package energy
 
 import (
+	"errors"
 	"fmt"
 	"math"
 )
@@ -37,6 +38,10 @@ type GroundSeries struct {
 	// the zero-temperature route was merged in (not kept by the cache).
 	LadderE0, LadderAlphaS Coeffs
 	ZeroT                  *ZeroTEps
+	// LadderOrders is how many orders the ladder's fits reached (all of
+	// them unless the fits failed and the zero-temperature route supplied
+	// the rest; S_0 then has only the fitted orders).
+	LadderOrders int
 }
 
 // Routes of a ground-series coefficient.
@@ -173,7 +178,16 @@ func groundAroundTwo(p GroundParams, eps bool) (*GroundSeries, error) {
 		return nil, err
 	}
 	g, err := groundFromLadder(ladder, deltaCorrections)
-	if err != nil {
+	var lf *LadderFitError
+	switch {
+	case err == nil:
+	case eps && errors.As(err, &lf) && lf.Order >= 1 && p.Order+1 <= MaxZeroTEpsOrder:
+		// The zero-temperature eps-series supplies the orders the fits
+		// could not; S_0 keeps only its fitted orders.
+	default:
+		if lf != nil && eps {
+			return nil, fmt.Errorf("%w (the zero-temperature eps-series, which could complete it, reaches E_0 to order %d and alpha_S to order %d)", err, MaxZeroTEpsOrder, MaxZeroTEpsOrder-1)
+		}
 		return nil, err
 	}
 	g.Variable = VarDelta
@@ -193,6 +207,11 @@ func groundAroundTwo(p GroundParams, eps bool) (*GroundSeries, error) {
 		if err != nil {
 			return nil, err
 		}
+		// Orders the fits did not reach count as unknown on the ladder.
+		for k := g.LadderOrders; k <= p.Order; k++ {
+			g.E0.Errors[k], g.AlphaS.Errors[k] = math.Inf(1), math.Inf(1)
+		}
+		g.S0 = Coeffs{Values: g.S0.Values[:g.LadderOrders], Errors: g.S0.Errors[:g.LadderOrders]}
 		g.mergeZeroT(z)
 	}
 	return g, nil
@@ -263,7 +282,10 @@ func groundFromLadderFrom(ladder []*FiniteBeta, corr func(k int) []corrTerm, fir
 		}
 		est, err := extractLowT(beta, e, ee, s, se, corr(k), max(8, m/2))
 		if err != nil {
-			return nil, fmt.Errorf("order %d: %w", k, err)
+			// The fitted orders are kept: the caller may complete the
+			// series from another route.
+			g.LadderOrders = k
+			return g, &LadderFitError{Order: k, Err: err}
 		}
 		g.E0.Values[k], g.E0.Errors[k] = est.E0, est.E0Err
 		g.S0.Values[k], g.S0.Errors[k] = est.S0, est.S0Err
@@ -277,8 +299,19 @@ func groundFromLadderFrom(ladder []*FiniteBeta, corr func(k int) []corrTerm, fir
 		g.FitsPerOrder = append(g.FitsPerOrder, acc)
 		g.TotalFitsPerOrder = append(g.TotalFitsPerOrder, len(est.Fits))
 	}
+	g.LadderOrders = n
 	return g, nil
 }
+
+// LadderFitError is the failure of the low-temperature fits at one order
+// of a ladder; the orders below were fitted.
+type LadderFitError struct {
+	Order int
+	Err   error
+}
+
+func (e *LadderFitError) Error() string { return fmt.Sprintf("order %d: %v", e.Order, e.Err) }
+func (e *LadderFitError) Unwrap() error { return e.Err }
 
 // Defaults of the q = infinity ladder.
 const (

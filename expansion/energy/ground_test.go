@@ -2,6 +2,7 @@ package energy
 
 import (
 	"math"
+	"strings"
 	"testing"
 )
 
@@ -77,5 +78,34 @@ func TestDeltaGroundS0AndFreeFermion(t *testing.T) {
 	for k := 0; k <= order; k++ {
 		t.Logf("eps^%d: E0 %.14g ± %.1e (%s)  alpha %.12g ± %.1e (%s)  S0 %.10g ± %.1e (exact %.10g)", k,
 			ge.E0.Values[k], ge.E0.Errors[k], ge.E0Route[k], ge.AlphaS.Values[k], ge.AlphaS.Errors[k], ge.AlphaSRoute[k], ge.S0.Values[k], ge.S0.Errors[k], ge.S0Exact[k])
+	}
+}
+
+// Beyond the orders the ladder's fits reach (order 10 with the default
+// ladder), the zero-temperature eps-series completes E_0 and alpha_S; the
+// S_0 check keeps the fitted orders only; beyond that route's reach the
+// order is refused and the error says why.
+func TestEpsGroundBeyondLadder(t *testing.T) {
+	const order = 12
+	g, err := EpsGround(GroundParams{Order: order})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if g.LadderOrders < 1 || g.LadderOrders > order || g.S0.Len() != g.LadderOrders {
+		t.Fatalf("ladder orders %d, S_0 has %d", g.LadderOrders, g.S0.Len())
+	}
+	for k := g.LadderOrders; k <= order; k++ {
+		if g.E0Route[k] != RouteZeroT || g.AlphaSRoute[k] != RouteZeroT {
+			t.Errorf("order %d: routes %q, %q", k, g.E0Route[k], g.AlphaSRoute[k])
+		}
+		for _, e := range []float64{g.E0.Errors[k], g.AlphaS.Errors[k]} {
+			if !(e > 0) || math.IsInf(e, 0) {
+				t.Errorf("order %d: error %g", k, e)
+			}
+		}
+	}
+	_, err = EpsGround(GroundParams{Order: MaxZeroTEpsOrder})
+	if err == nil || !strings.Contains(err.Error(), "zero-temperature eps-series") {
+		t.Errorf("order %d: %v", MaxZeroTEpsOrder, err)
 	}
 }
