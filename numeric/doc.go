@@ -25,6 +25,15 @@
 // the exact conformal data (h_1, and the exact S_0 for comparison) as
 // ConformalData from the caller; this package does not compute it.
 //
+// At zero temperature SolveZeroT solves on a logarithmic grid in tau with
+// Mellin-space sine transforms (LogGrid) and SolveZeroTGround extracts
+// alpha_G and E_0. SolveZeroTEps runs the same map with every grid value a
+// truncated power series in eps = 1 - 2/q around the free point q = 2, order
+// by order, and SolveZeroTEpsGround fits all orders of G/G_c - 1 at once
+// (FitAlphaGEps, with the exponents of EpsExponents carried as series) to
+// give alpha_G and E_0 as eps-series; the eps-series of h_n come from the
+// caller.
+//
 // The package is also the float64 toolkit of the perturbative expansions
 // (package expansion/energy): the half-interval sine-transform grid
 // HalfGrid (with exact transforms of the jumps at tau = 0, closed-form
