@@ -221,6 +221,9 @@ func groundNotes(end conformal.End, g *energy.GroundSeries, route []string) ([]s
 		}
 	}
 	if len(zt) == 0 {
+		if why, ok := strings.CutPrefix(g.ZeroTMethod, "not used: "); ok {
+			notes = append(notes, "The zero-temperature eps-series, which would compete per coefficient, failed: "+why+".")
+		}
 		return notes, ladder
 	}
 	notes = append(notes, "Each coefficient comes from the route that states the smaller error: the finite-T ladder or the zero-temperature eps-series ("+g.ZeroTMethod+").")

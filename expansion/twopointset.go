@@ -50,7 +50,11 @@ func newTwoPointSet(sa *series.Series, a *big.Float, sb *series.Series, b *big.F
 	}
 	// As in ResumTwoPoint: the window of the top orders steps down until
 	// it holds two pole-free entries.
-	var set *twoPointSet
+	// (ResumTwoPoint counts an entry once its value at x is computed; this
+	// set counts pole-free entries before any x is known, so the two can
+	// step down differently only when an evaluation of a pole-free entry
+	// fails, which at() then reports.)
+	set := &twoPointSet{prec: prec}
 	for top := n0; top >= 2 && top >= 2*minK; top-- {
 		set = scanTwoPoint(sa, a, sb, b, top, orders, diag, minK, margin, dtol, lo, hi, prec)
 		if len(set.ok) >= 2 {

@@ -13,6 +13,12 @@ import (
 type EpsSeriesParams struct {
 	Grid  ZeroTParams
 	Order int
+	// KernelRadius is the radius of the Cauchy sums that expand the Mellin
+	// weights in eps, as a fraction of the distance to their first pole (0
+	// means DefaultKernelRadius; it must lie in [0.3, 0.9]). Its choice moves
+	// the result only by round-off, which the order-by-order solve
+	// amplifies roughly tenfold per order: a second radius measures it.
+	KernelRadius float64
 }
 
 // MaxEpsSeriesOrder bounds Order: the Mellin weights' eps-series come from
@@ -43,9 +49,7 @@ type ZeroTEpsSeries struct {
 	OrderResidual []float64
 }
 
-// epsSeriesMaxFloor is the largest residual an order may stall at before
-// the solve counts as failed.
-const epsSeriesMaxFloor = 1e-6
+
 
 // epsConst holds the eps-series of the q-dependent constants (length K).
 type epsConst struct {
@@ -139,7 +143,7 @@ const eulerGamma = 0.57721566490153286060651209
 
 // zetaInt returns zeta(s) for an integer s >= 2 by Euler-Maclaurin
 // summation (DLMF 2.10.1) from n = 10 with the Bernoulli terms through
-// B_16: the first omitted term is below 1e-20.
+// B_16: the first omitted term is below 1e-17.
 func zetaInt(s int) float64 {
 	const n = 10
 	bern := [...]float64{1.0 / 6, -1.0 / 30, 1.0 / 42, -1.0 / 30, 5.0 / 66, -691.0 / 2730, 7.0 / 6, -3617.0 / 510}
@@ -162,16 +166,24 @@ func zetaInt(s int) float64 {
 
 // epsKernel returns, per Fourier mode m of the grid, the eps-series of the
 // Mellin weight M(p0 - eps + i eta_m) e^{-2 pi i m/N}/N (the weight of
-// LogGrid.kernel with the tilt moved by -eps), from Cauchy sums on a
-// circle of radius r in eps on which M stays analytic (M is analytic for
-// Re s > -2).
-func epsKernel(g *LogGrid, p0 float64, k int) [][]complex128 {
-	const nc = 64
-	r := math.Min(0.6, 0.5*(p0+2))
+// LogGrid.kernel with the tilt moved by -eps), from Cauchy sums on a circle
+// in eps around 0. M is analytic for Re s > -2 (its first pole is at
+// s = -2), so the circle's radius is the fraction kr of the distance to
+// that pole (at most kernelMaxRadius): the round-off of the sums, which grows
+// like r^-j at order j, then stays near that of M itself, and the aliasing
+// (r/distance)^kernelNodes is below 1e-16. The coefficients' accuracy sets
+// the round-off of the whole eps-series solve.
+func epsKernel(g *LogGrid, p0, kr float64, k int) [][]complex128 {
+	const nc = kernelNodes
 	out := make([][]complex128, g.n/2+1)
 	vals := make([]complex128, nc)
+	rot := make([]complex128, nc)
+	for l := range rot {
+		rot[l] = cmplx.Rect(1, -2*math.Pi*float64(l)/nc)
+	}
 	for m := range out {
 		eta := 2 * math.Pi * float64(m) / (float64(g.n) * g.step)
+		r := math.Min(kr*math.Hypot(p0+2, eta), kernelMaxRadius)
 		ph := cmplx.Exp(complex(0, -2*math.Pi*float64(m)/float64(g.n))) / complex(float64(g.n), 0)
 		for l := range vals {
 			e := cmplx.Rect(r, 2*math.Pi*float64(l)/nc)
@@ -181,7 +193,7 @@ func epsKernel(g *LogGrid, p0 float64, k int) [][]complex128 {
 		for j := range c {
 			var s complex128
 			for l, v := range vals {
-				s += v * cmplx.Rect(1, -2*math.Pi*float64(l*j%nc)/nc)
+				s += v * rot[l*j%nc]
 			}
 			c[j] = s / complex(nc*math.Pow(r, float64(j)), 0) * ph
 		}
@@ -189,6 +201,16 @@ func epsKernel(g *LogGrid, p0 float64, k int) [][]complex128 {
 	}
 	return out
 }
+
+// The circle of the Mellin weights' Cauchy sums: by default
+// DefaultKernelRadius of the distance to the pole at s = -2, at most
+// kernelMaxRadius (where |M| varies by |eta|^{2r} around the circle), on
+// kernelNodes points.
+const (
+	DefaultKernelRadius = 0.75
+	kernelMaxRadius     = 1.2
+	kernelNodes         = 160
+)
 
 // epsMap is zeroTMap with eps-series samples: arrays are coefficient-major,
 // a[k*n + i] the eps^k coefficient at point i.
@@ -219,7 +241,7 @@ type epsMap struct {
 	tmp          [6][]float64
 }
 
-func newEpsMap(p ZeroTParams, k int) (*epsMap, error) {
+func newEpsMap(p ZeroTParams, kr float64, k int) (*epsMap, error) {
 	eps := p.Tilt
 	span := math.Log(p.TauPin/p.TauMin) + 18/eps*math.Ln10
 	// The periodic images of the tilted functions, a period L away, enter
@@ -239,8 +261,8 @@ func newEpsMap(p ZeroTParams, k int) (*epsMap, error) {
 		return nil, err
 	}
 	m := &epsMap{grid: grid, k: k, n: n, c: newEpsConst(k), tilt: eps}
-	m.kernS = epsKernel(grid, -1+eps, k)
-	m.kernG = epsKernel(grid, -eps, k)
+	m.kernS = epsKernel(grid, -1+eps, kr, k)
+	m.kernG = epsKernel(grid, -eps, kr, k)
 	lpin := math.Log(p.TauPin)
 	mk := func(l int) []float64 { return make([]float64, l) }
 	m.tiltS, m.gOut, m.sigOut, m.gIn = mk(n), mk(n), mk(n), mk(n)
@@ -413,7 +435,13 @@ func SolveZeroTEps(p EpsSeriesParams) (*ZeroTEpsSeries, error) {
 	}
 	p.Grid = gp
 	k := p.Order + 1
-	m, err := newEpsMap(gp, k)
+	if p.KernelRadius == 0 {
+		p.KernelRadius = DefaultKernelRadius
+	}
+	if !(p.KernelRadius >= 0.3 && p.KernelRadius <= 0.9) {
+		return nil, fmt.Errorf("%w: the kernel radius of the eps-series solve must lie in [0.3, 0.9], got %g", ErrInput, p.KernelRadius)
+	}
+	m, err := newEpsMap(gp, p.KernelRadius, k)
 	if err != nil {
 		return nil, err
 	}
@@ -488,10 +516,9 @@ func SolveZeroTEps(p EpsSeriesParams) (*ZeroTEpsSeries, error) {
 			if res <= gp.Tol {
 				break
 			}
-			if it-lastGain > zeroTStall {
-				// No progress: the round-off floor of this order (the
-				// log tau factors of the eps-expansion amplify it order by
-				// order deep in the conformal region).
+			if bestRes <= zeroTFloorFactor*gp.Tol && it-lastGain > zeroTStall {
+				// No progress near the tolerance: the round-off floor of
+				// this order; take the best iterate.
 				copy(x, best)
 				res, floor = bestRes, true
 				break
@@ -509,14 +536,14 @@ func SolveZeroTEps(p EpsSeriesParams) (*ZeroTEpsSeries, error) {
 			prevRes = res
 			acc.step(x, fx, mix)
 		}
-		if res > epsSeriesMaxFloor && (res > gp.Tol && !floor || floor) {
-			return nil, fmt.Errorf("numeric: zero-temperature eps-series iteration did not converge at order %d (%d points): residual %.3g after %d iterations (tolerance %.3g)", j, n, bestRes, it-1, gp.Tol)
+		if res > gp.Tol && !floor {
+			return nil, fmt.Errorf("numeric: zero-temperature eps-series iteration did not converge at order %d (%d points): residual %.3g after %d iterations (tolerance %.3g)", j, n, bestRes, min(it, maxIterations), gp.Tol)
 		}
 		copy(row, x)
 		// Refresh the transforms of this order for the state kept: the
 		// next orders reuse them.
 		m.apply(out, full, j+1)
-		sol.Iterations += it
+		sol.Iterations += min(it, maxIterations)
 		sol.Residual = math.Max(sol.Residual, res)
 		sol.OrderResidual = append(sol.OrderResidual, res)
 	}

@@ -128,3 +128,55 @@ func TestZetaInt(t *testing.T) {
 		}
 	}
 }
+
+func TestFitAlphaGEpsBadInput(t *testing.T) {
+	tau := make([]float64, 200)
+	r0, r1 := make([]float64, 200), make([]float64, 200)
+	for i := range tau {
+		tau[i] = math.Exp(float64(i) * 0.05)
+		r0[i] = 1
+		r1[i] = -math.Pi / 4 / tau[i]
+	}
+	s := &ZeroTEpsSeries{Tau: tau, Ratio: [][]float64{r0, r1}}
+	good, err := EpsExponents([][]float64{{4, 0}}, 2, 4)
+	if err != nil {
+		t.Fatal(err)
+	}
+	ok := make([][]float64, 2)
+	zero := make([][]float64, 2)
+	for j := range ok {
+		ok[j] = make([]float64, len(tau))
+		zero[j] = make([]float64, len(tau))
+		for i := range ok[j] {
+			ok[j][i] = 1e-15
+		}
+	}
+	cases := []struct {
+		name  string
+		s     *ZeroTEpsSeries
+		exps  []EpsExponent
+		noise [][]float64
+		lo    float64
+	}{
+		{"nil solution", nil, good, ok, 10},
+		{"no exponents", s, nil, ok, 10},
+		{"first exponent not 1", s, good[1:], ok, 10},
+		{"short exponent", s, []EpsExponent{{Series: []float64{1}, Label: "1"}}, ok, 10},
+		{"zero noise", s, good, zero, 10},
+		{"short noise", s, good, ok[:1], 10},
+		{"bad window", s, good, ok, -1},
+	}
+	for _, c := range cases {
+		if _, err := FitAlphaGEps(c.s, c.exps, c.noise, c.lo, 1e4); !errors.Is(err, ErrInput) {
+			t.Errorf("%s: %v", c.name, err)
+		}
+	}
+	// The same data fitted: alpha_G = (pi/4) eps exactly.
+	f, err := FitAlphaGEps(s, good, ok, 10, 1e4)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if d := math.Abs(f.AlphaG[1] - math.Pi/4); d > 1e-12 || math.Abs(f.AlphaG[0]) > 1e-12 {
+		t.Errorf("alpha_G = %v, want 0 and pi/4", f.AlphaG)
+	}
+}

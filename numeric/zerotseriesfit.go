@@ -77,10 +77,45 @@ type EpsAlphaGFit struct {
 // family costs one unknown per order. noise[j][i] is the error of datum
 // Ratio[j][i]. Families that coincide at eps = 0 are told apart only by
 // the higher orders; the combinations the data cannot fix are dropped by
-// a truncated singular-value solve, which leaves alpha_G (the family
-// e = 1, alone at eps = 0) untouched. alpha_G = -A_1.
+// a truncated singular-value solve (minimum norm in the equilibrated
+// unknowns; alpha_G, the family e = 1, is alone at eps = 0 and so stays
+// determined, but Stat leaves out the dropped directions). alpha_G = -A_1.
 func FitAlphaGEps(s *ZeroTEpsSeries, exps []EpsExponent, noise [][]float64, lo, hi float64) (*EpsAlphaGFit, error) {
+	if s == nil || len(s.Ratio) == 0 {
+		return nil, fmt.Errorf("%w: no eps-series solution to fit", ErrInput)
+	}
 	k := len(s.Ratio)
+	if len(exps) == 0 || len(exps[0].Series) == 0 || exps[0].Series[0] != 1 {
+		return nil, fmt.Errorf("%w: the exponents must start with the soft-mode family e = 1", ErrInput)
+	}
+	for _, e := range exps {
+		if len(e.Series) < k {
+			return nil, fmt.Errorf("%w: exponent %s has %d coefficients, %d needed", ErrInput, e.Label, len(e.Series), k)
+		}
+	}
+	if len(exps[0].Series) > 1 {
+		for _, c := range exps[0].Series[1:k] {
+			if c != 0 {
+				return nil, fmt.Errorf("%w: the first exponent must be the constant 1 (the h = 2 mode)", ErrInput)
+			}
+		}
+	}
+	if !(lo > 0 && hi > lo) || math.IsInf(hi, 0) {
+		return nil, fmt.Errorf("%w: fit window tau %g..%g", ErrInput, lo, hi)
+	}
+	if len(noise) < k {
+		return nil, fmt.Errorf("%w: noise for %d orders, %d needed", ErrInput, len(noise), k)
+	}
+	for j := 0; j < k; j++ {
+		if len(noise[j]) < len(s.Tau) {
+			return nil, fmt.Errorf("%w: noise of order %d has %d points, %d needed", ErrInput, j, len(noise[j]), len(s.Tau))
+		}
+		for _, v := range noise[j] {
+			if !(v > 0) || math.IsInf(v, 0) {
+				return nil, fmt.Errorf("%w: noise %g of order %d is not positive and finite", ErrInput, v, j)
+			}
+		}
+	}
 	var rows []int
 	for i, t := range s.Tau {
 		if t >= lo && t <= hi {

@@ -18,31 +18,43 @@ type ZeroTEpsGround struct {
 	Method            string
 }
 
-// Settings of the eps-series extraction: the variant solution whose
-// difference from the main one is the noise model, the fit windows and
-// the largest correction exponent (at eps = 0) of the models.
+// Settings of the eps-series extraction: the variant solutions whose
+// differences from the main one are the noise model (another tilt, and
+// another radius of the Mellin weights' Cauchy sums: both move the result
+// only by round-off, amplified order by order), the fit windows and the
+// largest correction exponent (at eps = 0) of the models.
 var (
-	epsVariant = ZeroTParams{Tilt: 0.2}
-	epsWindows = [][2]float64{{50, 1e5}, {20, 1e4}, {30, 3e4}, {20, 1e6}}
-	epsEmax    = []float64{6, 7}
+	epsVariants = []EpsSeriesParams{{Grid: ZeroTParams{Tilt: epsTiltStep}}, {KernelRadius: 0.6}}
+	epsWindows  = [][2]float64{{50, 1e5}, {20, 1e4}, {30, 3e4}, {20, 1e6}}
+	epsEmax     = []float64{6, 7}
 )
 
+// epsTiltStep is how much the tilt variant adds to the main tilt (the
+// default 0.15 becomes 0.2); the kernel variant's radius must differ from
+// the main one's too, or the noise model would collapse to its floor.
+const epsTiltStep = 0.05
+
 // epsNoise returns the noise model of the main solution a: per order, the
-// difference from the variant b at the same tau (the grids share their
-// points up to the hand-over when their steps agree), with a floor of the
-// round-off 1e-16 tau^Tilt, and its running maximum over +-20 points.
-func epsNoise(a, b *ZeroTEpsSeries) [][]float64 {
+// largest difference from the others at the same tau (the grids share
+// their points up to the hand-over when their steps agree), with a floor of
+// the round-off 1e-16 tau^Tilt, and its running maximum over +-20 points.
+func epsNoise(a *ZeroTEpsSeries, others []*ZeroTEpsSeries) [][]float64 {
 	k := len(a.Ratio)
 	out := make([][]float64, k)
 	raw := make([]float64, len(a.Tau))
 	tilt := a.Params.Grid.Tilt
 	for j := range out {
-		ib := 0
 		for i, tau := range a.Tau {
-			for ib < len(b.Tau)-1 && b.Tau[ib] < tau*(1-1e-9) {
-				ib++
+			raw[i] = 1e-16 * math.Pow(tau, tilt)
+		}
+		for _, b := range others {
+			ib := 0
+			for i, tau := range a.Tau {
+				for ib < len(b.Tau)-1 && b.Tau[ib] < tau*(1-1e-9) {
+					ib++
+				}
+				raw[i] = math.Max(raw[i], math.Abs(a.Ratio[j][i]-b.Ratio[j][ib]))
 			}
-			raw[i] = math.Max(math.Abs(a.Ratio[j][i]-b.Ratio[j][ib]), 1e-16*math.Pow(tau, tilt))
 		}
 		sm := make([]float64, len(raw))
 		for i := range sm {
@@ -56,40 +68,66 @@ func epsNoise(a, b *ZeroTEpsSeries) [][]float64 {
 }
 
 // SolveZeroTEpsGround solves the zero-temperature equations as eps-series
-// (SolveZeroTEps with p and with the tilt of epsVariant) and extracts
+// (SolveZeroTEps with p and with the variants epsVariants) and extracts
 // alpha_G from joint fits of all orders (FitAlphaGEps) with the
 // exponents of EpsExponents(dims): dims[n-1] is the eps-series of h_n from
 // the exact conformal data (supplied by the caller, at least p.Order + 1
-// coefficients each). The noise of each datum is the difference of the
-// two solutions. alpha_G per order is the median of the fits of the main
-// solution over epsWindows and epsEmax; its error is half the range over
-// all fits of both solutions plus the largest statistical error. E_0 is
-// the main solution's, its error the difference from the variant plus
-// 1e-15 of the largest coefficient (the float64 round-off of the sum).
+// coefficients each). The noise of each datum is its largest difference
+// between the solutions. alpha_G per order is the median of the fits of
+// the main solution over epsWindows and epsEmax; its error is half the
+// range over all fits of all solutions plus the largest statistical error.
+// E_0 is the main solution's, its error the largest difference from the
+// variants plus 1e-15 of the largest coefficient (the float64 round-off of
+// the sum).
 func SolveZeroTEpsGround(p EpsSeriesParams, dims [][]float64) (*ZeroTEpsGround, error) {
 	if len(dims) == 0 {
 		return nil, fmt.Errorf("%w: the zero-temperature fits need at least h_1", ErrInput)
 	}
 	k := p.Order + 1
-	// The two solves are independent: one goroutine each (progress, when
-	// given, is serialised and shows their mean).
-	var mu sync.Mutex
-	frac := [2]float64{}
-	sols := make([]*ZeroTEpsSeries, 2)
-	errs := make([]error, 2)
-	var wg sync.WaitGroup
-	for i, v := range []ZeroTParams{p.Grid, epsVariant} {
+	// The solves are independent: one goroutine each (progress, when given,
+	// is serialised and shows their mean).
+	if _, err := EpsExponents(dims, k, epsEmax[0]); err != nil {
+		return nil, err
+	}
+	tilt := p.Grid.Tilt
+	if tilt == 0 {
+		tilt = DefaultZeroTTilt
+	}
+	kr := p.KernelRadius
+	if kr == 0 {
+		kr = DefaultKernelRadius
+	}
+	runs := []EpsSeriesParams{p}
+	for _, v := range epsVariants {
 		pv := p
-		if i == 1 {
-			pv.Grid.Tilt = v.Tilt
+		if v.Grid.Tilt != 0 {
+			pv.Grid.Tilt = tilt + v.Grid.Tilt
 		}
+		if v.KernelRadius != 0 {
+			pv.KernelRadius = v.KernelRadius
+			if math.Abs(kr-v.KernelRadius) < 0.05 {
+				pv.KernelRadius = kr + 0.1
+			}
+		}
+		runs = append(runs, pv)
+	}
+	var mu sync.Mutex
+	frac := make([]float64, len(runs))
+	sols := make([]*ZeroTEpsSeries, len(runs))
+	errs := make([]error, len(runs))
+	var wg sync.WaitGroup
+	for i, pv := range runs {
 		if p.Grid.Progress != nil {
 			i := i
 			pv.Grid.Progress = func(f float64, d string) {
 				mu.Lock()
 				defer mu.Unlock()
 				frac[i] = f
-				p.Grid.Progress((frac[0]+frac[1])/2, d)
+				sum := 0.0
+				for _, x := range frac {
+					sum += x
+				}
+				p.Grid.Progress(sum/float64(len(frac)), d)
 			}
 		}
 		wg.Add(1)
@@ -104,12 +142,22 @@ func SolveZeroTEpsGround(p EpsSeriesParams, dims [][]float64) (*ZeroTEpsGround, 
 			return nil, err
 		}
 	}
-	a, b := sols[0], sols[1]
+	a := sols[0]
 	g := &ZeroTEpsGround{Solutions: sols}
 	var main, all []*EpsAlphaGFit
 	for si, s := range sols {
-		other := sols[1-si]
-		noise := epsNoise(s, other)
+		var others []*ZeroTEpsSeries
+		for oi, o := range sols {
+			if oi != si {
+				others = append(others, o)
+			}
+		}
+		// The differences between solutions understate the scatter about
+		// the fitted models (chi^2 per degree of freedom 20..1000 at the
+		// highest orders); the fits inflate their statistical errors by
+		// sqrt(chi^2), and the spread over windows, models and solutions
+		// carries the rest.
+		noise := epsNoise(s, others)
 		for _, emax := range epsEmax {
 			exps, err := EpsExponents(dims, k, emax)
 			if err != nil {
@@ -152,13 +200,21 @@ func SolveZeroTEpsGround(p EpsSeriesParams, dims [][]float64) (*ZeroTEpsGround, 
 		big = math.Max(big, math.Abs(v))
 	}
 	for l := range g.E0Err {
-		g.E0Err[l] = math.Abs(a.E0[l]-b.E0[l]) + 1e-15*big
+		d := 0.0
+		for _, o := range sols[1:] {
+			d = math.Max(d, math.Abs(a.E0[l]-o.E0[l]))
+		}
+		g.E0Err[l] = d + 1e-15*big
 	}
 	pp := a.Params.Grid
+	wlo, whi := math.Inf(1), 0.0
+	for _, w := range epsWindows {
+		wlo, whi = math.Min(wlo, w[0]), math.Max(whi, w[1])
+	}
 	var sb strings.Builder
-	fmt.Fprintf(&sb, "T = 0 Schwinger-Dyson solve as power series in eps to order %d (float64 coefficients on a log grid of %d points, step %.3g, tau %.0e..%.0e then conformal, tilts %.2g and %.2g; Mellin weights of the moving tilts expanded in eps), ", p.Order, a.Points, pp.Step, pp.TauMin, pp.TauPin, pp.Tilt, epsVariant.Tilt)
-	fmt.Fprintf(&sb, "alpha_G from joint fits of all orders of G/G_c - 1 with exponents 1 and h_n(eps) - 1 and their sums up to %g at eps = 0 (the log tau terms of the moving exponents carried exactly), over %d windows in tau %g..%g, noise = difference of the two tilts; ", epsEmax[len(epsEmax)-1], len(epsWindows), 20.0, 1e6)
-	sb.WriteString("error = half the range of all fits + largest statistical error; E_0 error = difference of the two tilts")
+	fmt.Fprintf(&sb, "T = 0 Schwinger-Dyson solve as power series in eps to order %d (float64 coefficients on a log grid of %d points, step %.3g, tau %.0e..%.0e then conformal, tilt %.2g; Mellin weights of the moving tilts expanded in eps by Cauchy sums at %.2g of the distance to their pole), and two variants (tilt %.2g; Cauchy radius %.2g), ", p.Order, a.Points, pp.Step, pp.TauMin, pp.TauPin, pp.Tilt, a.Params.KernelRadius, sols[1].Params.Grid.Tilt, sols[2].Params.KernelRadius)
+	fmt.Fprintf(&sb, "alpha_G from joint fits of all orders of G/G_c - 1 with exponents 1 and h_n(eps) - 1 and their sums up to %g at eps = 0 (the log tau terms of the moving exponents carried exactly), over %d windows in tau %g..%g, noise = largest difference from the variants; ", epsEmax[len(epsEmax)-1], len(epsWindows), wlo, whi)
+	sb.WriteString("error = half the range of all fits of the three solutions + largest statistical error; E_0 error = largest difference from the variants")
 	g.Method = sb.String()
 	return g, nil
 }

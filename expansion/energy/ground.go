@@ -171,7 +171,14 @@ func groundAroundTwo(p GroundParams, eps bool) (*GroundSeries, error) {
 	if eps {
 		v = VarEps
 	}
-	ladder, err := p.runLadder(func(b float64) (*FiniteBeta, error) {
+	// Progress: around q = 2 in eps the ladder is the first half of the
+	// work, the zero-temperature eps-series the second.
+	progress := p.Progress
+	lp := p
+	if eps && progress != nil {
+		lp.Progress = func(f float64, d string) { progress(f/2, d) }
+	}
+	ladder, err := lp.runLadder(func(b float64) (*FiniteBeta, error) {
 		return DeltaExpand(DeltaParams{Beta: b, Order: p.Order, Variable: v})
 	})
 	if err != nil {
@@ -203,9 +210,21 @@ func groundAroundTwo(p GroundParams, eps bool) (*GroundSeries, error) {
 	g.E0Route = routes(p.Order+1, RouteLadder)
 	g.AlphaSRoute = routes(p.Order+1, RouteLadder)
 	if eps {
-		z, err := EpsZeroT(min(p.Order+1, MaxZeroTEpsOrder), p.Progress)
+		var zp func(float64, string)
+		if progress != nil {
+			zp = func(f float64, d string) { progress(0.5+f/2, d) }
+		}
+		z, err := EpsZeroT(min(p.Order+1, MaxZeroTEpsOrder), zp)
 		if err != nil {
-			return nil, err
+			if g.LadderOrders <= p.Order {
+				return nil, fmt.Errorf("order %d: the ladder's fits stop there and the zero-temperature eps-series that would complete them failed: %w", g.LadderOrders, err)
+			}
+			// The ladder's series stands; say why the other route is missing.
+			g.ZeroTMethod = "not used: " + err.Error()
+			return g, nil
+		}
+		if progress != nil {
+			progress(1, "done")
 		}
 		// Orders the fits did not reach count as unknown on the ladder.
 		for k := g.LadderOrders; k <= p.Order; k++ {
