@@ -49,8 +49,6 @@ type ZeroTEpsSeries struct {
 	OrderResidual []float64
 }
 
-
-
 // epsConst holds the eps-series of the q-dependent constants (length K).
 type epsConst struct {
 	q, qm1, j2, logB, b, gtc, a2 []float64
