@@ -575,6 +575,9 @@ func SolveZeroTEps(p EpsSeriesParams) (*ZeroTEpsSeries, error) {
 			sum[j] += lg[j]
 		}
 	}
+	if gp.Progress != nil {
+		gp.Progress(1, fmt.Sprintf("T = 0 eps-series to order %d: done", p.Order))
+	}
 	// E_0 = -(2 J^2/q) int G^q dtau.
 	j2q, iq := m.tmp[5], make([]float64, k)
 	iq[0] = 0.5
