@@ -345,6 +345,7 @@ type storedGround struct {
 	E0Route           []string  `json:"E_0_route"`
 	AlphaSRoute       []string  `json:"alpha_S_route"`
 	ZeroTMethod       string    `json:"zero_T_method,omitempty"`
+	ZeroTAlphaG       coeffJSON `json:"alpha_G_zero_T"`
 }
 
 // coeffJSON is a float64 series; encoding/json writes float64 values so
@@ -358,7 +359,7 @@ func storeGround(g *energy.GroundSeries) storedGround {
 	cj := func(c energy.Coeffs) coeffJSON { return coeffJSON{c.Values, c.Errors} }
 	return storedGround{Variable: g.Variable, E0: cj(g.E0), S0: cj(g.S0), AlphaS: cj(g.AlphaS), S0Exact: g.S0Exact,
 		BetaMin: g.BetaMin, BetaMax: g.BetaMax, LadderLen: len(g.Ladder), FitsPerOrder: g.FitsPerOrder, TotalFitsPerOrder: g.TotalFitsPerOrder,
-		E0Route: g.E0Route, AlphaSRoute: g.AlphaSRoute, ZeroTMethod: g.ZeroTMethod}
+		E0Route: g.E0Route, AlphaSRoute: g.AlphaSRoute, ZeroTMethod: g.ZeroTMethod, ZeroTAlphaG: cj(g.ZeroTAlphaG)}
 }
 
 func (s storedGround) ground(variable string, order int) (*energy.GroundSeries, error) {
@@ -380,11 +381,20 @@ func (s storedGround) ground(variable string, order int) (*energy.GroundSeries, 
 	if len(s.S0Exact) != order+1 {
 		return nil, fmt.Errorf("%d exact S_0 coefficients, want %d", len(s.S0Exact), order+1)
 	}
+	if len(s.ZeroTAlphaG.Values) != len(s.ZeroTAlphaG.Errors) {
+		return nil, fmt.Errorf("zero-temperature alpha_G: %d coefficients and %d errors", len(s.ZeroTAlphaG.Values), len(s.ZeroTAlphaG.Errors))
+	}
+	for i := range s.ZeroTAlphaG.Values {
+		if !finite(s.ZeroTAlphaG.Values[i]) || !finite(s.ZeroTAlphaG.Errors[i]) || s.ZeroTAlphaG.Errors[i] < 0 {
+			return nil, fmt.Errorf("zero-temperature alpha_G coefficient %d: %g +- %g", i, s.ZeroTAlphaG.Values[i], s.ZeroTAlphaG.Errors[i])
+		}
+	}
 	if len(s.E0Route) != order+1 || len(s.AlphaSRoute) != order+1 {
 		return nil, fmt.Errorf("%d and %d coefficient routes, want %d", len(s.E0Route), len(s.AlphaSRoute), order+1)
 	}
 	co := func(c coeffJSON) energy.Coeffs { return energy.Coeffs{Values: c.Values, Errors: c.Errors} }
 	return &energy.GroundSeries{Variable: s.Variable, E0: co(s.E0), S0: co(s.S0), AlphaS: co(s.AlphaS), S0Exact: s.S0Exact,
 		BetaMin: s.BetaMin, BetaMax: s.BetaMax, FitsPerOrder: s.FitsPerOrder, TotalFitsPerOrder: s.TotalFitsPerOrder,
-		E0Route: s.E0Route, AlphaSRoute: s.AlphaSRoute, ZeroTMethod: s.ZeroTMethod, LadderOrders: len(s.S0.Values)}, nil
+		E0Route: s.E0Route, AlphaSRoute: s.AlphaSRoute, ZeroTMethod: s.ZeroTMethod, LadderOrders: len(s.S0.Values),
+		ZeroTAlphaG: co(s.ZeroTAlphaG)}, nil
 }

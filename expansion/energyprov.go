@@ -183,11 +183,34 @@ func (p energyProvider) softSeries(r Request) (*SeriesResult, error) {
 	}
 	c = energy.Coeffs{Values: c.Values[:r.Order+1], Errors: c.Errors[:r.Order+1]}
 	notes, fit := groundNotes(r.End, g, g.AlphaSRoute)
+	// Around q = 2 the zero-temperature route measures alpha_G itself: per
+	// coefficient, the direct product (alpha_G, or -q k_A'(2) alpha_G) where
+	// its error is the smaller.
+	var direct []string
+	if r.End == conformal.AroundTwo && g.ZeroTAlphaG.Len() > 1 {
+		d, err := energy.SoftSeriesFromAlphaG(p.kind, g.ZeroTAlphaG)
+		if err != nil {
+			return nil, inputErr(err)
+		}
+		for k := 0; k <= r.Order && k < d.Len(); k++ {
+			if d.Errors[k] < c.Errors[k] {
+				c.Values[k], c.Errors[k] = d.Values[k], d.Errors[k]
+				direct = append(direct, fmt.Sprint(k))
+			}
+		}
+	}
 	factor := map[string]string{
 		energy.QuantityAlphaK: "F_K = 6 q^2 alpha_0, alpha_0 = 2 pi q/((q-1)(q-2) tan(pi/q))",
 		energy.QuantityAlphaG: "F_G = 6 q^2 alpha_0/(-q k_A'(2)), k_A'(2) in closed form",
 	}[p.kind]
 	method := fmt.Sprintf("alpha_S series to order %d times the exact series of %s (conformal.SoftFactorSeries; errors: the alpha_S errors propagated, sum_j |f_j| err_(k-j)); alpha_S from %s", so, factor, fit)
+	if len(direct) > 0 {
+		what := "the zero-temperature alpha_G eps-series itself"
+		if p.kind == energy.QuantityAlphaK {
+			what = "-q k_A'(2) times the zero-temperature alpha_G eps-series (one exact factor series, errors sum_j |r_j| err_(k-j))"
+		}
+		method = fmt.Sprintf("orders %s: %s; the others: %s", strings.Join(direct, ","), what, method)
+	}
 	if r.End == conformal.AroundTwo {
 		notes = append(notes, "F_K and F_G are analytic at q = 2 in eps: alpha_0(2) = pi^2 is finite (the zero of 1/tan(pi/q) cancels the pole of 1/(q-2)) and k_A'(2) has a simple pole, so F_K(2) = 24 pi^2 (alpha_K(2) = pi) and F_G = 6 pi^2 eps + O(eps^2) (alpha_G(2) = 0, its constant term an exact zero).")
 	} else {

@@ -2,6 +2,7 @@ package expansion
 
 import (
 	"math"
+	"strings"
 	"testing"
 
 	"qbridge/expansion/conformal"
@@ -65,6 +66,39 @@ func TestSoftQuantities(t *testing.T) {
 		}
 		if !math.IsNaN(c.published) && math.Abs(c.direct-c.published) > c.tol {
 			t.Errorf("%s(4) direct %v, published ~%v", c.name, c.direct, c.published)
+		}
+	}
+}
+
+// Around q = 2 the soft-mode series start at the exact free-fermion limits
+// (PHYSICS.md sec. 5 and 7: alpha_S(2) = 1/(24 pi), alpha_K(2) = 24 pi^2
+// alpha_S(2) = pi, alpha_G = (pi/4) eps + ...), each within its stated
+// error; alpha_G and alpha_K there come from the zero-temperature alpha_G
+// series directly where that is the more accurate, so their errors are at
+// most those of the route through alpha_S.
+func TestSoftSeriesAtTwo(t *testing.T) {
+	if testing.Short() {
+		t.Skip("ground series take seconds")
+	}
+	want := map[string][2]float64{AlphaS: {0, 1 / (24 * math.Pi)}, AlphaK: {0, math.Pi}, AlphaG: {1, math.Pi / 4}}
+	for name, w := range want {
+		p, _, err := ParseName(name)
+		if err != nil {
+			t.Fatal(err)
+		}
+		r, err := p.Series(Request{End: conformal.AroundTwo, Order: 4})
+		if err != nil {
+			t.Fatal(err)
+		}
+		c := r.Parts[0]
+		k := int(w[0])
+		v, _ := c.Values[k].Float64()
+		e, _ := c.Errors[k].Float64()
+		if d := math.Abs(v - w[1]); d > e || !(e > 0) || e > 1e-8 {
+			t.Errorf("%s eps^%d = %.15g ± %.1e, exact %.15g (off by %.1e)", name, k, v, e, w[1], d)
+		}
+		if name != AlphaS && !strings.Contains(c.Method, "zero-temperature alpha_G") {
+			t.Errorf("%s: method does not use the direct alpha_G series: %s", name, c.Method)
 		}
 	}
 }

@@ -38,6 +38,10 @@ type GroundSeries struct {
 	// the zero-temperature route was merged in (not kept by the cache).
 	LadderE0, LadderAlphaS Coeffs
 	ZeroT                  *ZeroTEps
+	// ZeroTAlphaG is alpha_G's eps-series from the zero-temperature route
+	// when it ran (empty otherwise; kept by the cache): the alpha_G and
+	// alpha_K series take it where it is the more accurate.
+	ZeroTAlphaG Coeffs
 	// LadderOrders is how many orders the ladder's fits reached (all of
 	// them unless the fits failed and the zero-temperature route supplied
 	// the rest; S_0 then has only the fitted orders).
@@ -251,6 +255,10 @@ func (g *GroundSeries) mergeZeroT(z *ZeroTEps) {
 		return Coeffs{Values: append([]float64(nil), c.Values...), Errors: append([]float64(nil), c.Errors...)}
 	}
 	g.LadderE0, g.LadderAlphaS, g.ZeroT = cp(g.E0), cp(g.AlphaS), z
+	g.ZeroTAlphaG = cp(z.AlphaG)
+	if g.ZeroTMethod == "" {
+		g.ZeroTMethod = z.Method
+	}
 	used := false
 	take := func(dst *Coeffs, src Coeffs, route []string) {
 		for l := 0; l < dst.Len() && l < src.Len(); l++ {

@@ -141,3 +141,63 @@ func SoftSeries(quantity, variable string, alphaS Coeffs) (Coeffs, error) {
 	}
 	return out, nil
 }
+
+// SoftSeriesFromAlphaG returns, around q = 2 in eps, the series of quantity
+// (QuantityAlphaG or QuantityAlphaK) from a direct eps-series of alpha_G
+// (whose constant term is an exact zero, as at q = 2): alpha_G itself, or
+// alpha_K = -q k_A'(2) alpha_G = [F_K/(F_G/eps)] (alpha_G/eps), the factor
+// a regular series built once from the exact factors so that the error
+// propagation sum_j |r_j| err_(k-j) runs through one product, not through
+// alpha_S and back. With alpha_G known to order n, alpha_K is known to
+// order n - 1.
+func SoftSeriesFromAlphaG(quantity string, alphaG Coeffs) (Coeffs, error) {
+	n := alphaG.Len()
+	switch {
+	case quantity != QuantityAlphaK && quantity != QuantityAlphaG:
+		return Coeffs{}, fmt.Errorf("%w: %q is not alpha_K or alpha_G", ErrInput, quantity)
+	case n < 2:
+		return Coeffs{}, fmt.Errorf("%w: the alpha_G series needs order >= 1", ErrInput)
+	case alphaG.Values[0] != 0:
+		return Coeffs{}, fmt.Errorf("energy: the eps-series of alpha_G must start at eps^1")
+	}
+	if quantity == QuantityAlphaG {
+		return Coeffs{Values: append([]float64(nil), alphaG.Values...), Errors: append([]float64(nil), alphaG.Errors...)}, nil
+	}
+	m := n - 1 // alpha_G/eps has m terms, so has alpha_K
+	fk, fg, err := conformal.SoftFactorSeries(conformal.AroundTwo, m, softFactorDigits)
+	if err != nil {
+		return Coeffs{}, err
+	}
+	// r = F_K / (F_G/eps) through order m-1, in float64 from the exact factors.
+	f := make([]float64, m)
+	kv := make([]float64, m)
+	for j := 0; j < m; j++ {
+		f[j], _ = fg.Values[j+1].Float64()
+		kv[j], _ = fk.Values[j].Float64()
+	}
+	inv := make([]float64, m)
+	inv[0] = 1 / f[0]
+	for j := 1; j < m; j++ {
+		s := 0.0
+		for i := 1; i <= j; i++ {
+			s += f[i] * inv[j-i]
+		}
+		inv[j] = -s * inv[0]
+	}
+	r := make([]float64, m)
+	for j := 0; j < m; j++ {
+		for i := 0; i <= j; i++ {
+			r[j] += kv[i] * inv[j-i]
+		}
+	}
+	out := Coeffs{Values: make([]float64, m), Errors: make([]float64, m)}
+	for k := 0; k < m; k++ {
+		v, e := 0.0, 0.0
+		for j := 0; j <= k; j++ {
+			v += r[j] * alphaG.Values[k-j+1]
+			e += math.Abs(r[j]) * alphaG.Errors[k-j+1]
+		}
+		out.Values[k], out.Errors[k] = v, e+math.Abs(v)*0x1p-50
+	}
+	return out, nil
+}
