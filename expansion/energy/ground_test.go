@@ -104,6 +104,38 @@ func TestEpsGroundBeyondLadder(t *testing.T) {
 			}
 		}
 	}
+	// Stated vs true error: the partial sums at q = 2.5 (eps = 0.2) and
+	// q = 3 (eps = 1/3) against the direct zero-temperature solves there
+	// (SoftModeZeroT: E_0 and alpha_S, errors 1e-15 and 1e-12). The sum's
+	// error is sum_k err_k eps^k plus a geometric tail from the last term
+	// with ratio eps/0.95 (the radius is about 0.95 or more); it must cover
+	// the difference.
+	for _, q := range []float64{2.5, 3} {
+		e := 1 - 2/q
+		d, err := SoftModeZeroT(q, nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, c := range []struct {
+			name       string
+			s          Coeffs
+			want, werr float64
+		}{{"E_0", g.E0, d.E0, d.E0Err}, {"alpha_S", g.AlphaS, d.AlphaS, d.AlphaSErr}} {
+			v, se, p := 0.0, 0.0, 1.0
+			for k := 0; k < c.s.Len(); k++ {
+				v += c.s.Values[k] * p
+				se += c.s.Errors[k] * p
+				p *= e
+			}
+			last := math.Abs(c.s.Values[c.s.Len()-1]) * p / e
+			se += last * e / 0.95 / (1 - e/0.95)
+			if diff := math.Abs(v - c.want); diff > se+c.werr {
+				t.Errorf("%s(q = %g): eps partial sum %.15g ± %.1e, direct %.15g ± %.1e (off by %.1e)", c.name, q, v, se, c.want, c.werr, diff)
+			} else {
+				t.Logf("%s(q = %g): partial sum %.15g ± %.1e, direct %.15g ± %.1e, off by %.1e", c.name, q, v, se, c.want, c.werr, diff)
+			}
+		}
+	}
 	_, err = EpsGround(GroundParams{Order: MaxZeroTEpsOrder})
 	if err == nil || !strings.Contains(err.Error(), "zero-temperature eps-series") {
 		t.Errorf("order %d: %v", MaxZeroTEpsOrder, err)
