@@ -175,21 +175,7 @@ func SoftSeriesFromAlphaG(quantity string, alphaG Coeffs) (Coeffs, error) {
 		f[j], _ = fg.Values[j+1].Float64()
 		kv[j], _ = fk.Values[j].Float64()
 	}
-	inv := make([]float64, m)
-	inv[0] = 1 / f[0]
-	for j := 1; j < m; j++ {
-		s := 0.0
-		for i := 1; i <= j; i++ {
-			s += f[i] * inv[j-i]
-		}
-		inv[j] = -s * inv[0]
-	}
-	r := make([]float64, m)
-	for j := 0; j < m; j++ {
-		for i := 0; i <= j; i++ {
-			r[j] += kv[i] * inv[j-i]
-		}
-	}
+	r := fsMul(kv, fsInv(f, m), m)
 	out := Coeffs{Values: make([]float64, m), Errors: make([]float64, m)}
 	for k := 0; k < m; k++ {
 		v, e := 0.0, 0.0

@@ -66,15 +66,7 @@ func EpsZeroT(order int, progress func(float64, string)) (*ZeroTEps, error) {
 	for j := range f {
 		f[j], _ = fg.Values[j+1].Float64()
 	}
-	inv := make([]float64, n)
-	inv[0] = 1 / f[0]
-	for j := 1; j < n; j++ {
-		s := 0.0
-		for i := 1; i <= j; i++ {
-			s += f[i] * inv[j-i]
-		}
-		inv[j] = -s * inv[0]
-	}
+	inv := fsInv(f, n)
 	out.AlphaS = Coeffs{Values: make([]float64, n), Errors: make([]float64, n)}
 	for j := 0; j < n; j++ {
 		v, e := 0.0, 0.0
