@@ -43,18 +43,25 @@ func solveLevel(q, beta float64, m int, tol float64, warm *Level, progress func(
 			s.b, s.freezeB = warm.sigmaB, true
 		}
 	}
-	fx := make([]float64, m)
-	best := make([]float64, m)
-	bestRes := math.Inf(1)
-	acc := newAnderson(andersonDepth, m)
-	mix := 1.0
-	prevRes := math.Inf(1)
-	res := math.Inf(1)
-	it := 0
-	startRes := -1.0
-	for it = 1; it <= maxIterations; it++ {
+	fp := fixedPoint{tol: tol, mix: 1, active: m,
+		afterBest: func(res float64) bool {
+			if res < freezeBelowRes && !s.freezeB {
+				s.freezeB = true
+				return true
+			}
+			return false
+		}}
+	if progress != nil {
+		fp.progress = func(it int, res, startRes float64) {
+			if it%5 == 0 && startRes > tol {
+				f := math.Log(startRes/res) / math.Log(startRes/tol)
+				progress(math.Max(0, math.Min(1, f)), fmt.Sprintf("iteration %d, residual %.2e", it, res))
+			}
+		}
+	}
+	r := fp.run(x, func(x, fx []float64) float64 {
 		s.apply(fx, x)
-		res = 0
+		res := 0.0
 		for n := range fx {
 			g := fx[n] + s.gm[n]
 			d := math.Abs(fx[n]-x[n]) / g
@@ -63,52 +70,16 @@ func solveLevel(q, beta float64, m int, tol float64, warm *Level, progress func(
 			}
 			fx[n] -= x[n]
 		}
-		if math.IsNaN(res) || math.IsInf(res, 0) {
-			if bestRes == math.Inf(1) {
-				return nil, fmt.Errorf("numeric: NaN in the SD iteration at q=%g beta=%g (points %d, iteration %d); try a warm start from a smaller beta", q, beta, 2*m, it)
-			}
-			copy(x, best)
-			mix /= 2
-			acc.reset()
-			continue
-		}
-		if startRes < 0 {
-			startRes = res
-		}
-		if progress != nil && it%5 == 0 && startRes > tol {
-			f := math.Log(startRes/res) / math.Log(startRes/tol)
-			progress(math.Max(0, math.Min(1, f)), fmt.Sprintf("iteration %d, residual %.2e", it, res))
-		}
-		if res < bestRes {
-			bestRes = res
-			copy(best, x)
-		}
-		if res <= tol {
-			break
-		}
-		if res < freezeBelowRes && !s.freezeB {
-			s.freezeB = true
-			acc.reset()
-		}
-		if res > 4*prevRes {
-			// The accelerated step overshot: go back to the best point, damp, restart history.
-			copy(x, best)
-			mix /= 2
-			acc.reset()
-			prevRes = bestRes
-			if mix < 1e-6 {
-				break
-			}
-			continue
-		}
-		prevRes = res
-		acc.step(x, fx, mix)
+		return res
+	})
+	if r.nanAt > 0 {
+		return nil, fmt.Errorf("numeric: NaN in the SD iteration at q=%g beta=%g (points %d, iteration %d); try a warm start from a smaller beta", q, beta, 2*m, r.nanAt)
 	}
+	res, it := r.res, r.it
 	if res > tol {
-		return nil, fmt.Errorf("numeric: SD iteration did not converge at q=%g beta=%g (points %d): residual %.3g after %d iterations (tolerance %.3g); try a looser tolerance, more points, or a warm start from a nearby beta", q, beta, 2*m, bestRes, it-1, tol)
+		return nil, fmt.Errorf("numeric: SD iteration did not converge at q=%g beta=%g (points %d): residual %.3g after %d iterations (tolerance %.3g); try a looser tolerance, more points, or a warm start from a nearby beta", q, beta, 2*m, r.bestRes, it-1, tol)
 	}
-	// Release the iteration's work space before the result is built.
-	acc, best = nil, nil
+	fx := make([]float64, m)
 	lv := &Level{Q: q, Beta: beta, Points: 2 * m, Iterations: it, Residual: res, r: x, sigmaB: s.b}
 	lv.LogZ, lv.E = s.thermo(x, fx)
 	lv.Tau = make([]float64, m+1)

@@ -151,19 +151,32 @@ type zeroTMap struct {
 	bufA, bufB []float64
 }
 
-func newZeroTMap(p ZeroTParams) (*zeroTMap, error) {
-	q := p.Q
-	d := 1 / q
-	eps := p.Tilt
-	span := math.Log(p.TauPin/p.TauMin) + 18/eps*math.Ln10
+// zeroTSpan is the extent in log tau of the zero-temperature grid: from
+// TauMin to TauPin, then 18/Tilt decades of conformal tail, where the
+// tilted functions fall to 1e-18.
+func zeroTSpan(p ZeroTParams) float64 {
+	return math.Log(p.TauPin/p.TauMin) + 18/p.Tilt*math.Ln10
+}
+
+// zeroTGrid is the log grid of the smallest power-of-two size that covers
+// span with the step of p.
+func zeroTGrid(p ZeroTParams, span float64) (*LogGrid, error) {
 	n := 16
 	for float64(n-1)*p.Step < span {
 		n *= 2
 	}
-	grid, err := NewLogGrid(p.TauMin, p.Step, n)
+	return NewLogGrid(p.TauMin, p.Step, n)
+}
+
+func newZeroTMap(p ZeroTParams) (*zeroTMap, error) {
+	q := p.Q
+	d := 1 / q
+	eps := p.Tilt
+	grid, err := zeroTGrid(p, zeroTSpan(p))
 	if err != nil {
 		return nil, err
 	}
+	n := grid.n
 	m := &zeroTMap{grid: grid, q: q, d: d, j2: math.Pow(2, q-1) / q, b: ConformalAmplitude(q),
 		pS: 2*d - 2 + eps, pG: 2*d - 1 - eps}
 	// Conformal sigma~: Sigma_c = J^2 B^{q-1} tau^{2D-2}, sigma_c = 2 J^2 B^{q-1} M(2D-2) w^{1-2D}.
@@ -254,18 +267,18 @@ func SolveZeroT(p ZeroTParams) (*ZeroTSolution, error) {
 			x[k] = m.b
 		}
 	}
-	fx := make([]float64, n)
-	best := make([]float64, n)
-	bestRes := math.Inf(1)
-	acc := newAnderson(andersonDepth, m.free)
-	mix := 0.5
-	prevRes := math.Inf(1)
-	res, startRes := math.Inf(1), -1.0
-	it, lastGain := 0, 0
-	floor := false
-	for it = 1; it <= maxIterations; it++ {
+	fp := fixedPoint{tol: p.Tol, mix: 0.5, active: m.free, floor: true}
+	if p.Progress != nil {
+		fp.progress = func(it int, res, startRes float64) {
+			if it%10 == 0 && startRes > p.Tol {
+				f := math.Log(startRes/res) / math.Log(startRes/p.Tol)
+				p.Progress(math.Max(0, math.Min(1, f)), fmt.Sprintf("T = 0, %d points, iteration %d, residual %.2e", n, it, res))
+			}
+		}
+	}
+	r := fp.run(x, func(x, fx []float64) float64 {
 		m.apply(fx, x)
-		res = 0
+		res := 0.0
 		for k := 0; k < m.free; k++ {
 			dk := math.Abs(fx[k]-x[k]) * m.resWeight[k]
 			if dk > res || math.IsNaN(dk) {
@@ -273,53 +286,14 @@ func SolveZeroT(p ZeroTParams) (*ZeroTSolution, error) {
 			}
 			fx[k] -= x[k]
 		}
-		if math.IsNaN(res) || math.IsInf(res, 0) {
-			if math.IsInf(bestRes, 1) {
-				return nil, fmt.Errorf("numeric: NaN in the zero-temperature iteration at q=%g (iteration %d)", q, it)
-			}
-			copy(x, best)
-			mix /= 2
-			acc.reset()
-			continue
-		}
-		if startRes < 0 {
-			startRes = res
-		}
-		if p.Progress != nil && it%10 == 0 && startRes > p.Tol {
-			f := math.Log(startRes/res) / math.Log(startRes/p.Tol)
-			p.Progress(math.Max(0, math.Min(1, f)), fmt.Sprintf("T = 0, %d points, iteration %d, residual %.2e", n, it, res))
-		}
-		if res < 0.9*bestRes {
-			lastGain = it
-		}
-		if res < bestRes {
-			bestRes = res
-			copy(best, x)
-		}
-		if res <= p.Tol {
-			break
-		}
-		if bestRes <= zeroTFloorFactor*p.Tol && it-lastGain > zeroTStall {
-			// At the round-off floor: take the best iterate.
-			copy(x, best)
-			res, floor = bestRes, true
-			break
-		}
-		if res > 4*prevRes {
-			copy(x, best)
-			mix /= 2
-			acc.reset()
-			prevRes = bestRes
-			if mix < 1e-6 {
-				break
-			}
-			continue
-		}
-		prevRes = res
-		acc.step(x[:m.free], fx[:m.free], mix)
+		return res
+	})
+	if r.nanAt > 0 {
+		return nil, fmt.Errorf("numeric: NaN in the zero-temperature iteration at q=%g (iteration %d)", q, r.nanAt)
 	}
-	if res > p.Tol && !floor {
-		return nil, fmt.Errorf("numeric: zero-temperature iteration did not converge at q=%g (%d points): residual %.3g after %d iterations (tolerance %.3g); try a looser tolerance or a smaller step", q, n, bestRes, it-1, p.Tol)
+	res, it := r.res, r.it
+	if !r.converged(p.Tol) {
+		return nil, fmt.Errorf("numeric: zero-temperature iteration did not converge at q=%g (%d points): residual %.3g after %d iterations (tolerance %.3g); try a looser tolerance or a smaller step", q, n, r.bestRes, it-1, p.Tol)
 	}
 	sol := &ZeroTSolution{Params: p, B: m.b, Points: n, Iterations: it, Residual: res}
 	sol.Tau = make([]float64, m.free)

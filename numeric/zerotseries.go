@@ -241,7 +241,7 @@ type epsMap struct {
 
 func newEpsMap(p ZeroTParams, kr float64, k int) (*epsMap, error) {
 	eps := p.Tilt
-	span := math.Log(p.TauPin/p.TauMin) + 18/eps*math.Ln10
+	span := zeroTSpan(p)
 	// The periodic images of the tilted functions, a period L away, enter
 	// the transforms with weight e^{-Tilt L}; the eps-expansion of the
 	// moving tilts multiplies that by L^j/j! at order j. The period is
@@ -250,14 +250,11 @@ func newEpsMap(p ZeroTParams, kr float64, k int) (*epsMap, error) {
 	for eps*span-float64(k-1)*math.Log(span)+lgk < 46 {
 		span *= 1.05
 	}
-	n := 16
-	for float64(n-1)*p.Step < span {
-		n *= 2
-	}
-	grid, err := NewLogGrid(p.TauMin, p.Step, n)
+	grid, err := zeroTGrid(p, span)
 	if err != nil {
 		return nil, err
 	}
+	n := grid.n
 	m := &epsMap{grid: grid, k: k, n: n, c: newEpsConst(k), tilt: eps}
 	m.kernS = epsKernel(grid, -1+eps, kr, k)
 	m.kernG = epsKernel(grid, -eps, kr, k)
@@ -458,8 +455,6 @@ func SolveZeroTEps(p EpsSeriesParams) (*ZeroTEpsSeries, error) {
 	}
 	out := make([]float64, n*k)
 	x := make([]float64, free)
-	fx := make([]float64, free)
-	best := make([]float64, free)
 	w := make([]float64, free)
 	for i := range w {
 		w[i] = m.tiltS[i] / m.c.b[0]
@@ -471,17 +466,19 @@ func SolveZeroTEps(p EpsSeriesParams) (*ZeroTEpsSeries, error) {
 	for j := 0; j < k; j++ {
 		copy(x, full[j*n:j*n+free])
 		row := full[j*n : j*n+free]
-		bestRes := math.Inf(1)
-		acc := newAnderson(andersonDepth, free)
-		mix := 0.5
-		prevRes := math.Inf(1)
-		res, startRes := math.Inf(1), -1.0
-		it, lastGain := 0, 0
-		floor := false
-		for it = 1; it <= maxIterations; it++ {
+		fp := fixedPoint{tol: gp.Tol, mix: 0.5, active: free, floor: true}
+		if gp.Progress != nil {
+			j := j
+			fp.progress = func(it int, res, _ float64) {
+				if it%10 == 0 {
+					gp.Progress(float64(j)/float64(k), fmt.Sprintf("T = 0 eps-series: order %d of %d, %d points, iteration %d, residual %.2e", j, p.Order, n, it, res))
+				}
+			}
+		}
+		r := fp.run(x, func(x, fx []float64) float64 {
 			copy(row, x)
 			m.apply(out, full, j+1)
-			res = 0
+			res := 0.0
 			for i := 0; i < free; i++ {
 				d := math.Abs(out[j*n+i]-x[i]) * w[i]
 				if d > res || math.IsNaN(d) {
@@ -489,53 +486,14 @@ func SolveZeroTEps(p EpsSeriesParams) (*ZeroTEpsSeries, error) {
 				}
 				fx[i] = out[j*n+i] - x[i]
 			}
-			if math.IsNaN(res) || math.IsInf(res, 0) {
-				if math.IsInf(bestRes, 1) {
-					return nil, fmt.Errorf("numeric: NaN in the zero-temperature eps-series iteration (order %d, iteration %d)", j, it)
-				}
-				copy(x, best)
-				mix /= 2
-				acc.reset()
-				continue
-			}
-			if startRes < 0 {
-				startRes = res
-			}
-			if gp.Progress != nil && it%10 == 0 {
-				gp.Progress(float64(j)/float64(k), fmt.Sprintf("T = 0 eps-series: order %d of %d, %d points, iteration %d, residual %.2e", j, p.Order, n, it, res))
-			}
-			if res < 0.9*bestRes {
-				lastGain = it
-			}
-			if res < bestRes {
-				bestRes = res
-				copy(best, x)
-			}
-			if res <= gp.Tol {
-				break
-			}
-			if bestRes <= zeroTFloorFactor*gp.Tol && it-lastGain > zeroTStall {
-				// No progress near the tolerance: the round-off floor of
-				// this order; take the best iterate.
-				copy(x, best)
-				res, floor = bestRes, true
-				break
-			}
-			if res > 4*prevRes {
-				copy(x, best)
-				mix /= 2
-				acc.reset()
-				prevRes = bestRes
-				if mix < 1e-6 {
-					break
-				}
-				continue
-			}
-			prevRes = res
-			acc.step(x, fx, mix)
+			return res
+		})
+		if r.nanAt > 0 {
+			return nil, fmt.Errorf("numeric: NaN in the zero-temperature eps-series iteration (order %d, iteration %d)", j, r.nanAt)
 		}
-		if res > gp.Tol && !floor {
-			return nil, fmt.Errorf("numeric: zero-temperature eps-series iteration did not converge at order %d (%d points): residual %.3g after %d iterations (tolerance %.3g)", j, n, bestRes, min(it, maxIterations), gp.Tol)
+		res, it := r.res, r.it
+		if !r.converged(gp.Tol) {
+			return nil, fmt.Errorf("numeric: zero-temperature eps-series iteration did not converge at order %d (%d points): residual %.3g after %d iterations (tolerance %.3g)", j, n, r.bestRes, min(it, maxIterations), gp.Tol)
 		}
 		copy(row, x)
 		// Refresh the transforms of this order for the state kept: the
