@@ -62,6 +62,10 @@ func DimensionSeries(end End, n, order, digits int) (*Coefficients, error) {
 	if err := checkN(n); err != nil {
 		return nil, err
 	}
+	// The singularity map that gives the radius does not depend on the
+	// series: it runs on the other core meanwhile (estimateRadius then
+	// waits for it through the map cache).
+	go DimensionSingularities(end, n, 1, radiusDigits)
 	var seed []*big.Float
 	c, err := twoPrecision(fmt.Sprintf("h_%d", n), end, order, digits,
 		"Newton iteration on series for k_A(h) = 1 with the colliding pole and zero cancelled",

@@ -341,11 +341,21 @@ func cachedScan(end End, n int) (*scanResult, error) {
 	return r, nil
 }
 
-// mapCache holds refined maps, by end, level, count and digits.
+// mapCache holds refined maps, by end, level, count and digits. An entry
+// is created when its computation starts and its ready channel closed when
+// it ends, so that a second caller (the radius of a series whose map was
+// started in parallel) waits instead of computing again; failures are
+// removed.
 var mapCache = struct {
 	sync.Mutex
-	m map[[4]int]*SingularityMap
-}{m: map[[4]int]*SingularityMap{}}
+	m map[[4]int]*mapEntry
+}{m: map[[4]int]*mapEntry{}}
+
+type mapEntry struct {
+	ready chan struct{}
+	m     *SingularityMap
+	err   error
+}
 
 // DimensionSingularities returns the count singularities of h_n(s) nearest
 // to the expansion point of the end, found exactly: the points where two
@@ -370,18 +380,35 @@ func DimensionSingularities(end End, n, count, digits int) (*SingularityMap, err
 	}
 	key := [4]int{int(end), n, count, digits}
 	mapCache.Lock()
-	m, ok := mapCache.m[key]
+	e, ok := mapCache.m[key]
+	if !ok {
+		e = &mapEntry{ready: make(chan struct{})}
+		mapCache.m[key] = e
+	}
 	mapCache.Unlock()
 	if ok {
-		return m, nil
+		<-e.ready
+		return e.m, e.err
 	}
+	e.m, e.err = dimensionSingularities(end, n, count, digits)
+	if e.err != nil {
+		mapCache.Lock()
+		delete(mapCache.m, key)
+		mapCache.Unlock()
+	}
+	close(e.ready)
+	return e.m, e.err
+}
+
+// dimensionSingularities computes the map of DimensionSingularities.
+func dimensionSingularities(end End, n, count, digits int) (*SingularityMap, error) {
 	sc, err := cachedScan(end, n)
 	if err != nil {
 		return nil, err
 	}
 	p1 := bitsFor(digits, 0)
 	p2 := secondPrec(p1)
-	m = &SingularityMap{
+	m := &SingularityMap{
 		Quantity: fmt.Sprintf("h_%d", n), End: end, N: n,
 		SearchRadius: big.NewFloat(sc.rmax),
 		Method: fmt.Sprintf("collisions of two roots of k_A(h) = 1 (k_A = 1 and dk_A/dh = 0), searched by continuing h_%d along %d rays in the upper half %s-plane to |%s| = %g and Newton's method in complex128 where |dh/d%s| peaks; kept where h_%d continued along the straight ray from %s = 0 reaches the point; polished by complex Newton's method at %d and %d bits (error: their difference)",
@@ -434,9 +461,6 @@ func DimensionSingularities(end End, n, count, digits int) (*SingularityMap, err
 			m.Singularities = append(m.Singularities, *up)
 		}
 	}
-	mapCache.Lock()
-	mapCache.m[key] = m
-	mapCache.Unlock()
 	return m, nil
 }
 
