@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"math"
 	"math/big"
+	"runtime"
+	"sync"
 
 	"qbridge/series"
 	"qbridge/series/scalar"
@@ -153,58 +155,84 @@ func (e *logEquation) eval(y *series.Series) (*evaluation, error) {
 	if e.logS != 0 {
 		return nil, fmt.Errorf("expansion: internal error: %d uncancelled powers of the expansion variable", e.logS)
 	}
+	// The terms are independent (each has its own Taylor cache): they are
+	// evaluated concurrently, then summed in their order, so the result
+	// does not depend on the scheduling.
+	n := len(e.terms)
+	fs, dfs, errs := make([]*series.Series, n), make([]*series.Series, n), make([]error, n)
+	workers := min(runtime.GOMAXPROCS(0), n)
+	next := make(chan int, n)
+	for i := range e.terms {
+		next <- i
+	}
+	close(next)
+	var wg sync.WaitGroup
+	for w := 0; w < workers; w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range next {
+				fs[i], dfs[i], errs[i] = e.evalTerm(&e.terms[i], y)
+			}
+		}()
+	}
+	wg.Wait()
 	var L, Ly *series.Series
 	for i := range e.terms {
-		tm := &e.terms[i]
-		u := series.Add(tm.a, series.Mul(tm.b, y))
-		if u.Coeff(0).Sign() == 0 {
-			return nil, errors.New("expansion: argument of a logarithm or pole of Gamma reached")
+		if errs[i] != nil {
+			return nil, errs[i]
 		}
-		var f, df *series.Series
-		var err error
-		switch tm.kind {
-		case kindLogGamma:
-			// One composition: psi(u) = (log Gamma)'(u) from its Taylor
-			// coefficients, and log Gamma(u) as the integral of psi(u) u'
-			// from log Gamma(u(0)).
-			n := u.Len()
-			tay, terr := tm.logGammaTaylor(u.Coeff(0), max(n+1, e.tayLen), e.prec)
-			if terr != nil {
-				return nil, terr
-			}
-			dtay := make([]*big.Float, n)
-			for k := 0; k < n; k++ {
-				dtay[k] = new(big.Float).SetPrec(e.prec).Mul(tay[k+1], new(big.Float).SetInt64(int64(k+1)))
-			}
-			if df, err = series.ComposeTaylor(dtay, u); err != nil {
-				return nil, err
-			}
-			if n == 1 {
-				f, err = series.FromBig(e.prec, tay[:1])
-			} else {
-				f, err = series.Integral(series.Mul(df, series.Deriv(u)), tay[0]), nil
-			}
-			if err != nil {
-				return nil, err
-			}
-		case kindLog:
-			if f, err = logAbs(u); err != nil {
-				return nil, err
-			}
-			if df, err = series.Inv(u); err != nil {
-				return nil, err
-			}
-		}
-		c := new(big.Float).SetPrec(e.prec).SetInt64(tm.coef)
-		f = series.Scale(f, c)
-		df = series.Scale(series.Mul(df, tm.b), c)
 		if L == nil {
-			L, Ly = f, df
+			L, Ly = fs[i], dfs[i]
 		} else {
-			L, Ly = series.Add(L, f), series.Add(Ly, df)
+			L, Ly = series.Add(L, fs[i]), series.Add(Ly, dfs[i])
 		}
 	}
 	return &evaluation{L: L, Ly: Ly}, nil
+}
+
+// evalTerm returns coef f(u) and its derivative in y, coef f'(u) b, for
+// one term at u = a + b y.
+func (e *logEquation) evalTerm(tm *term, y *series.Series) (f, df *series.Series, err error) {
+	u := series.Add(tm.a, series.Mul(tm.b, y))
+	if u.Coeff(0).Sign() == 0 {
+		return nil, nil, errors.New("expansion: argument of a logarithm or pole of Gamma reached")
+	}
+	switch tm.kind {
+	case kindLogGamma:
+		// One composition: psi(u) = (log Gamma)'(u) from its Taylor
+		// coefficients, and log Gamma(u) as the integral of psi(u) u'
+		// from log Gamma(u(0)).
+		n := u.Len()
+		tay, terr := tm.logGammaTaylor(u.Coeff(0), max(n+1, e.tayLen), e.prec)
+		if terr != nil {
+			return nil, nil, terr
+		}
+		dtay := make([]*big.Float, n)
+		for k := 0; k < n; k++ {
+			dtay[k] = new(big.Float).SetPrec(e.prec).Mul(tay[k+1], new(big.Float).SetInt64(int64(k+1)))
+		}
+		if df, err = series.ComposeTaylor(dtay, u); err != nil {
+			return nil, nil, err
+		}
+		if n == 1 {
+			f, err = series.FromBig(e.prec, tay[:1])
+		} else {
+			f, err = series.Integral(series.Mul(df, series.Deriv(u)), tay[0]), nil
+		}
+		if err != nil {
+			return nil, nil, err
+		}
+	case kindLog:
+		if f, err = logAbs(u); err != nil {
+			return nil, nil, err
+		}
+		if df, err = series.Inv(u); err != nil {
+			return nil, nil, err
+		}
+	}
+	c := new(big.Float).SetPrec(e.prec).SetInt64(tm.coef)
+	return series.Scale(f, c), series.Scale(series.Mul(df, tm.b), c), nil
 }
 
 // signAt returns the sign of the product whose logarithm is the equation,
