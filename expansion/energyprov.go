@@ -187,16 +187,13 @@ func (p energyProvider) softSeries(r Request) (*SeriesResult, error) {
 	// coefficient, the direct product (alpha_G, or -q k_A'(2) alpha_G) where
 	// its error is the smaller.
 	var direct []string
-	if r.End == conformal.AroundTwo && g.ZeroTAlphaG.Len() > 1 {
-		d, err := energy.SoftSeriesFromAlphaG(p.kind, g.ZeroTAlphaG)
-		if err != nil {
+	if r.End == conformal.AroundTwo {
+		var took []int
+		if c, took, err = energy.MergeDirectAlphaG(p.kind, c, g.ZeroTAlphaG); err != nil {
 			return nil, inputErr(err)
 		}
-		for k := 0; k <= r.Order && k < d.Len(); k++ {
-			if d.Errors[k] < c.Errors[k] {
-				c.Values[k], c.Errors[k] = d.Values[k], d.Errors[k]
-				direct = append(direct, fmt.Sprint(k))
-			}
+		for _, k := range took {
+			direct = append(direct, fmt.Sprint(k))
 		}
 	}
 	factor := map[string]string{
@@ -209,7 +206,11 @@ func (p energyProvider) softSeries(r Request) (*SeriesResult, error) {
 		if p.kind == energy.QuantityAlphaK {
 			what = "-q k_A'(2) times the zero-temperature alpha_G eps-series (one exact factor series, errors sum_j |r_j| err_(k-j))"
 		}
-		method = fmt.Sprintf("orders %s: %s; the others: %s", strings.Join(direct, ","), what, method)
+		if len(direct) == c.Len() {
+			method = "all orders: " + what
+		} else {
+			method = fmt.Sprintf("orders %s: %s; the others: %s", strings.Join(direct, ","), what, method)
+		}
 	}
 	if r.End == conformal.AroundTwo {
 		notes = append(notes, "F_K and F_G are analytic at q = 2 in eps: alpha_0(2) = pi^2 is finite (the zero of 1/tan(pi/q) cancels the pole of 1/(q-2)) and k_A'(2) has a simple pole, so F_K(2) = 24 pi^2 (alpha_K(2) = pi) and F_G = 6 pi^2 eps + O(eps^2) (alpha_G(2) = 0, its constant term an exact zero).")

@@ -76,7 +76,7 @@ func solveLevel(q, beta float64, m int, tol float64, warm *Level, progress func(
 		return nil, fmt.Errorf("numeric: NaN in the SD iteration at q=%g beta=%g (points %d, iteration %d); try a warm start from a smaller beta", q, beta, 2*m, r.nanAt)
 	}
 	res, it := r.res, r.it
-	if res > tol {
+	if !(res <= tol) {
 		return nil, fmt.Errorf("numeric: SD iteration did not converge at q=%g beta=%g (points %d): residual %.3g after %d iterations (tolerance %.3g); try a looser tolerance, more points, or a warm start from a nearby beta", q, beta, 2*m, r.bestRes, it-1, tol)
 	}
 	fx := make([]float64, m)

@@ -64,7 +64,13 @@ func DimensionSeries(end End, n, order, digits int) (*Coefficients, error) {
 	}
 	// The singularity map that gives the radius does not depend on the
 	// series: it runs on the other core meanwhile (estimateRadius then
-	// waits for it through the map cache).
+	// waits for it through the map cache). Bad input is refused first.
+	if err := checkOrder(order); err != nil {
+		return nil, err
+	}
+	if err := checkDigits(digits); err != nil {
+		return nil, err
+	}
 	go DimensionSingularities(end, n, 1, radiusDigits)
 	var seed []*big.Float
 	c, err := twoPrecision(fmt.Sprintf("h_%d", n), end, order, digits,

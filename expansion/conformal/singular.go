@@ -390,13 +390,13 @@ func DimensionSingularities(end End, n, count, digits int) (*SingularityMap, err
 		<-e.ready
 		return e.m, e.err
 	}
+	defer close(e.ready)
 	e.m, e.err = dimensionSingularities(end, n, count, digits)
 	if e.err != nil {
 		mapCache.Lock()
 		delete(mapCache.m, key)
 		mapCache.Unlock()
 	}
-	close(e.ready)
 	return e.m, e.err
 }
 

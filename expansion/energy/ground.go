@@ -196,11 +196,12 @@ func groundAroundTwo(p GroundParams, eps bool) (*GroundSeries, error) {
 		// The zero-temperature eps-series supplies the orders the fits
 		// could not; S_0 keeps only its fitted orders.
 	default:
-		if lf != nil && eps {
+		if lf != nil && eps && lf.Order >= 1 {
 			return nil, fmt.Errorf("%w (the zero-temperature eps-series, which could complete it, reaches E_0 to order %d and alpha_S to order %d)", err, MaxZeroTEpsOrder, MaxZeroTEpsOrder-1)
 		}
 		return nil, err
 	}
+	ladderErr := err
 	g.Variable = VarDelta
 	exact := ExactS0Delta
 	if eps {
@@ -221,7 +222,7 @@ func groundAroundTwo(p GroundParams, eps bool) (*GroundSeries, error) {
 		z, err := EpsZeroT(min(p.Order+1, MaxZeroTEpsOrder), zp)
 		if err != nil {
 			if g.LadderOrders <= p.Order {
-				return nil, fmt.Errorf("order %d: the ladder's fits stop there and the zero-temperature eps-series that would complete them failed: %w", g.LadderOrders, err)
+				return nil, fmt.Errorf("%v; the zero-temperature eps-series that would complete the series failed: %w", ladderErr, err)
 			}
 			// The ladder's series stands; say why the other route is missing.
 			g.ZeroTMethod = "not used: " + err.Error()

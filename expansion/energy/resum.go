@@ -264,7 +264,8 @@ func ResumGround(quantity string, q float64, eps, invq *GroundSeries) (*Resummat
 // ResumSeries returns the series a resummation of quantity uses around
 // q = 2 (a, in eps) and q = infinity (b, in x), and the power p of its
 // normalised function q^p F: the orders the fits determine (for alpha_G
-// and alpha_K, SoftSeries of those of alpha_S).
+// and alpha_K, SoftSeries of those of alpha_S, around q = 2 merged with the
+// direct alpha_G series by MergeDirectAlphaG).
 func ResumSeries(quantity string, eps, invq *GroundSeries) (a, b Coeffs, p int, err error) {
 	switch quantity {
 	case QuantityE0:
@@ -277,6 +278,11 @@ func ResumSeries(quantity string, eps, invq *GroundSeries) (a, b Coeffs, p int, 
 	a, b = resolved(a), resolved(b)
 	if quantity == QuantityAlphaG || quantity == QuantityAlphaK {
 		if a, err = SoftSeries(quantity, VarEps, a); err != nil {
+			return a, b, 0, err
+		}
+		// As the series command: the direct alpha_G series of the
+		// zero-temperature route where it is the more accurate.
+		if a, _, err = MergeDirectAlphaG(quantity, a, eps.ZeroTAlphaG); err != nil {
 			return a, b, 0, err
 		}
 		if b, err = SoftSeries(quantity, VarX, b); err != nil {

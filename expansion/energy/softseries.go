@@ -187,3 +187,27 @@ func SoftSeriesFromAlphaG(quantity string, alphaG Coeffs) (Coeffs, error) {
 	}
 	return out, nil
 }
+
+// MergeDirectAlphaG takes, per coefficient of c (the eps-series of
+// quantity, QuantityAlphaG or QuantityAlphaK, from SoftSeries of alpha_S),
+// the value from the direct alpha_G series (SoftSeriesFromAlphaG) where its
+// error is the smaller, and returns the orders it took. An empty alphaG
+// leaves c as it is. The length of c is kept.
+func MergeDirectAlphaG(quantity string, c, alphaG Coeffs) (Coeffs, []int, error) {
+	if alphaG.Len() < 2 {
+		return c, nil, nil
+	}
+	d, err := SoftSeriesFromAlphaG(quantity, alphaG)
+	if err != nil {
+		return c, nil, err
+	}
+	out := Coeffs{Values: append([]float64(nil), c.Values...), Errors: append([]float64(nil), c.Errors...)}
+	var took []int
+	for k := 0; k < out.Len() && k < d.Len(); k++ {
+		if d.Errors[k] < out.Errors[k] {
+			out.Values[k], out.Errors[k] = d.Values[k], d.Errors[k]
+			took = append(took, k)
+		}
+	}
+	return out, took, nil
+}
