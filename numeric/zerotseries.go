@@ -51,7 +51,7 @@ type ZeroTEpsSeries struct {
 
 // epsConst holds the eps-series of the q-dependent constants (length K).
 type epsConst struct {
-	q, qm1, j2, logB, b, gtc, a2 []float64
+	q, qm1, j2, logB, b, gtc []float64
 }
 
 // newEpsConst builds the constants of the map as eps-series:
@@ -61,7 +61,7 @@ type epsConst struct {
 // sin(pi eps/2)/eps (DLMF 5.5.3 and 5.9.7).
 func newEpsConst(k int) epsConst {
 	mk := func() []float64 { return make([]float64, k) }
-	c := epsConst{q: mk(), qm1: mk(), j2: mk(), logB: mk(), b: mk(), gtc: mk(), a2: mk()}
+	c := epsConst{q: mk(), qm1: mk(), j2: mk(), logB: mk(), b: mk(), gtc: mk()}
 	for i := range c.q {
 		c.q[i] = 2
 		c.qm1[i] = 2
@@ -128,11 +128,6 @@ func newEpsConst(k int) epsConst {
 	}
 	lg[0] -= math.Ln2
 	fsExpInto(c.gtc, lg)
-	// a^2 = 2/q = 1 - eps.
-	c.a2[0] = 1
-	if k > 1 {
-		c.a2[1] = -1
-	}
 	return c
 }
 
@@ -214,11 +209,10 @@ const (
 // a[k*n + i] the eps^k coefficient at point i.
 type epsMap struct {
 	grid         *LogGrid
-	k, n         int
+	n            int
 	c            epsConst
 	free         int
 	freqPin      int
-	tilt         float64
 	kernS, kernG [][]complex128
 	tiltS, gOut  []float64 // tau^{-tilt}, tau^{tilt}/pi
 	sigOut, gIn  []float64 // 2 w^{-tilt}, w^{tilt}
@@ -255,7 +249,7 @@ func newEpsMap(p ZeroTParams, kr float64, k int) (*epsMap, error) {
 		return nil, err
 	}
 	n := grid.n
-	m := &epsMap{grid: grid, k: k, n: n, c: newEpsConst(k), tilt: eps}
+	m := &epsMap{grid: grid, n: n, c: newEpsConst(k)}
 	m.kernS = epsKernel(grid, -1+eps, kr, k)
 	m.kernG = epsKernel(grid, -eps, kr, k)
 	lpin := math.Log(p.TauPin)

@@ -31,7 +31,7 @@ type GroundSeries struct {
 	// E0Route and AlphaSRoute say, per coefficient, which route gave it:
 	// RouteLadder (the low-temperature fits) or RouteZeroT (the
 	// zero-temperature eps-series, EpsZeroT), whichever states the smaller
-	// error; ZeroTMethod describes the latter when it was used.
+	// error; ZeroTMethod describes the latter whenever it ran.
 	E0Route, AlphaSRoute []string
 	ZeroTMethod          string
 	// LadderE0 and LadderAlphaS keep the ladder's own coefficients when
@@ -260,21 +260,16 @@ func (g *GroundSeries) mergeZeroT(z *ZeroTEps) {
 	if g.ZeroTMethod == "" {
 		g.ZeroTMethod = z.Method
 	}
-	used := false
 	take := func(dst *Coeffs, src Coeffs, route []string) {
 		for l := 0; l < dst.Len() && l < src.Len(); l++ {
 			if src.Errors[l] < dst.Errors[l] {
 				dst.Values[l], dst.Errors[l] = src.Values[l], src.Errors[l]
 				route[l] = RouteZeroT
-				used = true
 			}
 		}
 	}
 	take(&g.E0, z.E0, g.E0Route)
 	take(&g.AlphaS, z.AlphaS, g.AlphaSRoute)
-	if used {
-		g.ZeroTMethod = z.Method
-	}
 }
 
 // groundFromLadder fits every order of the ladder's series.
