@@ -87,6 +87,9 @@ func Mul(a, b *Series) *Series {
 	n := minLen(a, b)
 	prec := maxPrec(a, b)
 	out := newZero(n, prec)
+	if n >= fixedMinLen && mulLowFixed(out.c, a.c, b.c, prec) {
+		return out
+	}
 	t := new(big.Float).SetPrec(prec)
 	for k := 0; k < n; k++ {
 		acc := out.c[k]

@@ -81,6 +81,9 @@ func newFloats(n int, prec uint) []*big.Float {
 // scratch space.
 func mulByShifted(next, acc, u []*big.Float, t *big.Float) {
 	next[0].SetInt64(0)
+	if len(next) > fixedMinLen && mulLowFixed(next[1:], acc, u[1:], t.Prec()) {
+		return
+	}
 	for m := 1; m < len(next); m++ {
 		sum := next[m]
 		sum.SetInt64(0)
