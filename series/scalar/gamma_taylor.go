@@ -91,6 +91,9 @@ func LogGammaTaylor(x0 *big.Float, n int, prec uint) ([]*big.Float, error) {
 	if isGammaPole(x0) {
 		return nil, fmt.Errorf("%w: log Gamma series at %s", ErrPole, x0.Text('g', 10))
 	}
+	if out := memoGet(x0, n, prec); out != nil {
+		return out, nil
+	}
 	out, err := lgammaTaylorHigh(x0, n, prec)
 	if err != nil {
 		return nil, err
@@ -103,6 +106,7 @@ func LogGammaTaylor(x0 *big.Float, n int, prec uint) ([]*big.Float, error) {
 			return nil, err
 		}
 	}
+	memoPut(x0, out, prec)
 	return out, nil
 }
 
