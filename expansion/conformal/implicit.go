@@ -30,6 +30,21 @@ type term struct {
 	// series Newton iteration u(0) = a(0) + b(0) y(0) stays fixed.
 	tayAt *big.Float
 	tay   []*big.Float
+	// fixed caches coef f(a) when b vanishes: such a term (a constant
+	// factor of the kernel, or a pole split of one) does not depend on y,
+	// so it is evaluated once, at the full length of a, instead of at
+	// every Newton step.
+	fixed *series.Series
+}
+
+// independent reports whether b vanishes identically.
+func (tm *term) independent() bool {
+	for k := 0; k < tm.b.Len(); k++ {
+		if tm.b.Coeff(k).Sign() != 0 {
+			return false
+		}
+	}
+	return true
 }
 
 // logGammaTaylor returns at least n Taylor coefficients of log Gamma at u0,
@@ -141,14 +156,6 @@ type evaluation struct {
 	L, Ly *series.Series
 }
 
-// logAbs returns log|u| as a series (u(0) != 0).
-func logAbs(u *series.Series) (*series.Series, error) {
-	if u.Coeff(0).Sign() < 0 {
-		u = series.Neg(u)
-	}
-	return series.Log(u)
-}
-
 // eval returns L(y) and L_y(y) for the series y (a length-1 series is a
 // plain number).
 func (e *logEquation) eval(y *series.Series) (*evaluation, error) {
@@ -194,7 +201,24 @@ func (e *logEquation) eval(y *series.Series) (*evaluation, error) {
 // evalTerm returns coef f(u) and its derivative in y, coef f'(u) b, for
 // one term at u = a + b y.
 func (e *logEquation) evalTerm(tm *term, y *series.Series) (f, df *series.Series, err error) {
-	u := series.Add(tm.a, series.Mul(tm.b, y))
+	if !tm.independent() {
+		return e.evalTermAt(tm, series.Add(tm.a, series.Mul(tm.b, y)))
+	}
+	l := min(tm.a.Len(), tm.b.Len(), y.Len())
+	if tm.fixed == nil || tm.fixed.Len() < l {
+		if tm.fixed, _, err = e.evalTermAt(tm, tm.a); err != nil {
+			tm.fixed = nil
+			return nil, nil, err
+		}
+	}
+	if f, err = tm.fixed.Truncate(l); err != nil {
+		return nil, nil, err
+	}
+	return f, series.Scale(f, new(big.Float)), nil
+}
+
+// evalTermAt returns coef f(u) and coef f'(u) b at the argument series u.
+func (e *logEquation) evalTermAt(tm *term, u *series.Series) (f, df *series.Series, err error) {
 	if u.Coeff(0).Sign() == 0 {
 		return nil, nil, errors.New("expansion: argument of a logarithm or pole of Gamma reached")
 	}
@@ -224,10 +248,21 @@ func (e *logEquation) evalTerm(tm *term, y *series.Series) (f, df *series.Series
 			return nil, nil, err
 		}
 	case kindLog:
-		if f, err = logAbs(u); err != nil {
+		// One inversion serves both: d log|u| = u'/u, and f'(u) = 1/u.
+		if df, err = series.Inv(u); err != nil {
 			return nil, nil, err
 		}
-		if df, err = series.Inv(u); err != nil {
+		u0 := new(big.Float).Abs(u.Coeff(0))
+		l0, lerr := scalar.BigLog(u0, e.prec)
+		if lerr != nil {
+			return nil, nil, lerr
+		}
+		if u.Len() == 1 {
+			f, err = series.FromBig(e.prec, []*big.Float{l0})
+		} else {
+			f, err = series.Integral(series.Mul(df, series.Deriv(u)), l0), nil
+		}
+		if err != nil {
 			return nil, nil, err
 		}
 	}
@@ -529,8 +564,11 @@ func (e *logEquation) seriesRootFrom(seed []*big.Float) (*series.Series, *big.Fl
 // seriesRoot solves L(s, y(s)) = 0 for the series y(s) of length n with
 // y(0) = y0, by Newton's iteration on whole series: each step
 // y <- y - L(y)/L_y(y) doubles the number of correct coefficients. It
-// returns y and the size of the last correction.
-func (e *logEquation) seriesRoot(y0 *big.Float, n int) (*series.Series, *big.Float, error) {
+// returns y and the size of the last correction. With verify, Newton steps
+// at the full length go on until the correction is below the precision;
+// without, the iteration stops after the step that completes the doubling
+// to length n (for a caller that checks the root otherwise).
+func (e *logEquation) seriesRoot(y0 *big.Float, n int, verify bool) (*series.Series, *big.Float, error) {
 	y, err := series.New(n, e.prec)
 	if err != nil {
 		return nil, nil, err
@@ -561,6 +599,9 @@ func (e *logEquation) seriesRoot(y0 *big.Float, n int) (*series.Series, *big.Flo
 	}
 	var last *big.Float
 	maxIter := 8
+	if !verify {
+		maxIter = 1
+	}
 	for it := 0; it < maxIter; it++ {
 		corr, err := e.newtonCorrection(y)
 		if err != nil {
@@ -575,6 +616,9 @@ func (e *logEquation) seriesRoot(y0 *big.Float, n int) (*series.Series, *big.Flo
 			if y, err = y.Truncate(n); err != nil {
 				return nil, nil, err
 			}
+		}
+		if !verify {
+			return y, size, nil
 		}
 		scale := max(maxAbs(y).MantExp(nil), 1)
 		if size.Sign() == 0 || size.MantExp(nil) < scale-int(e.prec)+8 {
