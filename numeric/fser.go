@@ -31,9 +31,11 @@ func fsInvInto(dst, a []float64) {
 	}
 }
 
-// fsLogInto sets dst = log a (a[0] > 0; dst must not alias a), from
-// a (log a)' = a'.
-func fsLogInto(dst, a []float64) {
+// LogSeriesInto sets dst = log a for the float64 series a truncated to
+// len(dst) terms (a[0] > 0, len(a) >= len(dst); dst must not alias a), from
+// a (log a)' = a'. It allocates nothing: the series solvers call it at every
+// grid point.
+func LogSeriesInto(dst, a []float64) {
 	dst[0] = math.Log(a[0])
 	for k := 1; k < len(dst); k++ {
 		s := float64(k) * a[k]
@@ -44,10 +46,11 @@ func fsLogInto(dst, a []float64) {
 	}
 }
 
-// fsExpInto sets dst = exp a (dst must not alias a), from (e^a)' = a' e^a.
-// A constant term below the float64 range gives the zero series (the
-// higher terms would multiply 0 by overflowing powers).
-func fsExpInto(dst, a []float64) {
+// ExpSeriesInto sets dst = exp a for the float64 series a truncated to
+// len(dst) terms (len(a) >= len(dst); dst must not alias a), from
+// (e^a)' = a' e^a. A constant term below the float64 range gives the zero
+// series (the higher terms would multiply 0 by overflowing powers).
+func ExpSeriesInto(dst, a []float64) {
 	dst[0] = math.Exp(a[0])
 	if dst[0] == 0 {
 		for k := range dst {

@@ -77,7 +77,7 @@ func newEpsConst(k int) epsConst {
 	for i := range lj2 {
 		lj2[i] = c.qm1[i]*math.Ln2 - logq[i]
 	}
-	fsExpInto(c.j2, lj2)
+	ExpSeriesInto(c.j2, lj2)
 	// x cot x at x = pi eps/2, from cos x and sin x / x.
 	cosS, sincS, xcot := mk(), mk(), mk()
 	x := math.Pi / 2
@@ -94,7 +94,7 @@ func newEpsConst(k int) epsConst {
 	fsMulInto(xcot, cosS, inv)
 	// log b^q = log(x cot x) - 2 log pi.
 	lbq := mk()
-	fsLogInto(lbq, xcot)
+	LogSeriesInto(lbq, xcot)
 	lbq[0] -= 2 * math.Log(math.Pi)
 	// 1/q = (1-eps)/2.
 	invq := mk()
@@ -107,11 +107,11 @@ func newEpsConst(k int) epsConst {
 		d[i] = lbq[i] - lj2[i]
 	}
 	fsMulInto(c.logB, invq, d)
-	fsExpInto(c.b, c.logB)
+	ExpSeriesInto(c.b, c.logB)
 	// log M(-1-eps) = log Gamma(1-eps) + log(sin x / x) + log(pi/2), with
 	// log Gamma(1-eps) = gamma eps + sum_{j>=2} zeta(j) eps^j / j (DLMF 5.7.3).
 	lm := mk()
-	fsLogInto(lm, sincS)
+	LogSeriesInto(lm, sincS)
 	lm[0] += math.Log(math.Pi / 2)
 	if k > 1 {
 		lm[1] += eulerGamma
@@ -127,7 +127,7 @@ func newEpsConst(k int) epsConst {
 		lg[i] = -lj2[i] - qlb[i] - lm[i]
 	}
 	lg[0] -= math.Ln2
-	fsExpInto(c.gtc, lg)
+	ExpSeriesInto(c.gtc, lg)
 	return c
 }
 
@@ -278,7 +278,7 @@ func newEpsMap(p ZeroTParams, kr float64, k int) (*epsMap, error) {
 	for j := 1; j < k; j++ {
 		la[j] = -0.5 / float64(j)
 	}
-	fsExpInto(a, la)
+	ExpSeriesInto(a, la)
 	for i := 0; i < n; i++ {
 		x := grid.LogTau(i)
 		if x <= lpin {
@@ -295,7 +295,7 @@ func newEpsMap(p ZeroTParams, kr float64, k int) (*epsMap, error) {
 		if k > 1 {
 			t0[1] -= x
 		}
-		fsExpInto(t1, t0)
+		ExpSeriesInto(t1, t0)
 		m.setAt(m.gtModel, i, t1)
 		fsExpLinear(t0, (1-eps)*x-tau, x)
 		fsMulInto(t1, invq, t0)
@@ -374,9 +374,9 @@ func (m *epsMap) apply(out, gt []float64, k int) {
 	g, lg, pw, s := m.tmp[0][:k], m.tmp[1][:k], m.tmp[2][:k], m.tmp[3][:k]
 	for i := 0; i < n; i++ {
 		m.at(gt, i, g)
-		fsLogInto(lg, g)
+		LogSeriesInto(lg, g)
 		fsMulInto(pw, m.c.qm1[:k], lg)
-		fsExpInto(lg, pw)
+		ExpSeriesInto(lg, pw)
 		fsMulInto(s, m.c.j2[:k], lg)
 		m.bufA[top*n+i] = s[top]*m.tiltS[i] - m.sModel[top*n+i]
 	}
@@ -519,10 +519,10 @@ func SolveZeroTEps(p EpsSeriesParams) (*ZeroTEpsSeries, error) {
 			}
 		}
 		// G^q tau = Gt^q / tau.
-		fsLogInto(lg, g)
+		LogSeriesInto(lg, g)
 		fsMulInto(pw, m.c.q, lg)
 		pw[0] -= lt
-		fsExpInto(lg, pw)
+		ExpSeriesInto(lg, pw)
 		for j := range sum {
 			sum[j] += lg[j]
 		}

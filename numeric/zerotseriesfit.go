@@ -141,7 +141,7 @@ func FitAlphaGEps(s *ZeroTEpsSeries, exps []EpsExponent, noise [][]float64, lo, 
 			for j := range ex {
 				ex[j] = -e.Series[j] * x
 			}
-			fsExpInto(tr, ex)
+			ExpSeriesInto(tr, ex)
 			for r := range tr {
 				basis[f][r][m] = tr[r]
 			}

@@ -1,7 +1,5 @@
 package energy
 
-import "math"
-
 // Truncated power series with float64 coefficients, used pointwise on the
 // grids: c[0] + c[1] t + ... + c[n-1] t^(n-1). These are the small fixed
 // helpers of the perturbative solvers; the arbitrary-precision engine is
@@ -42,40 +40,4 @@ func fsGeometric(c0, c1 float64, n int) []float64 {
 		v *= r
 	}
 	return out
-}
-
-// at returns a[k], or zero beyond the length.
-func at(a []float64, k int) float64 {
-	if k < len(a) {
-		return a[k]
-	}
-	return 0
-}
-
-// fsLogInto writes log(a) to dst (len(dst) terms) without allocating; a[0]
-// must be positive. From a f' = a': k f_k a_0 = k a_k - sum_{j=1}^{k-1} j f_j a_{k-j}.
-func fsLogInto(dst, a []float64) {
-	n := len(dst)
-	dst[0] = math.Log(a[0])
-	for k := 1; k < n; k++ {
-		s := float64(k) * at(a, k)
-		for j := 1; j < k; j++ {
-			s -= float64(j) * dst[j] * at(a, k-j)
-		}
-		dst[k] = s / (float64(k) * a[0])
-	}
-}
-
-// fsExpInto writes exp(a) to dst (len(dst) terms) without allocating.
-// From f' = a' f: k f_k = sum_j j a_j f_{k-j}.
-func fsExpInto(dst, a []float64) {
-	n := len(dst)
-	dst[0] = math.Exp(a[0])
-	for k := 1; k < n; k++ {
-		s := 0.0
-		for j := 1; j <= k; j++ {
-			s += float64(j) * at(a, j) * dst[k-j]
-		}
-		dst[k] = s / float64(k)
-	}
 }

@@ -236,14 +236,14 @@ func solveInvQLevel(beta float64, m, order int) (*invQLevel, error) {
 						a[j] = g[j][i]
 					}
 				}
-				fsLogInto(lam[:k+1], a[:k+1])
+				numeric.LogSeriesInto(lam[:k+1], a[:k+1])
 				for j := 0; j < k; j++ {
 					psi[j] = lam[j+1]
 					if j > 0 {
 						psi[j] -= lam[j]
 					}
 				}
-				fsExpInto(ex[:k], psi[:k])
+				numeric.ExpSeriesInto(ex[:k], psi[:k])
 				phi[i] = ex[k-1]
 			}
 			// Non-local source from the frequency-space products.

@@ -27,7 +27,7 @@ func assembleLogZ(gr *numeric.HalfGrid, sig [][]float64, a1, a2 []float64, c flo
 		for k := 1; k < n; k++ {
 			u[k] = sig[k][i] / w
 		}
-		fsLogInto(l, u)
+		numeric.LogSeriesInto(l, u)
 		d := w*w + c*c
 		f1 := 2 / d
 		f2 := f1 / d
