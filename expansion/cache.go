@@ -345,6 +345,7 @@ type storedGround struct {
 	E0Route           []string  `json:"E_0_route"`
 	AlphaSRoute       []string  `json:"alpha_S_route"`
 	ZeroTMethod       string    `json:"zero_T_method,omitempty"`
+	ZeroTFailure      string    `json:"zero_T_failure,omitempty"`
 	ZeroTAlphaG       coeffJSON `json:"alpha_G_zero_T"`
 }
 
@@ -359,7 +360,7 @@ func storeGround(g *energy.GroundSeries) storedGround {
 	cj := func(c energy.Coeffs) coeffJSON { return coeffJSON{c.Values, c.Errors} }
 	return storedGround{Variable: g.Variable, E0: cj(g.E0), S0: cj(g.S0), AlphaS: cj(g.AlphaS), S0Exact: g.S0Exact,
 		BetaMin: g.BetaMin, BetaMax: g.BetaMax, LadderLen: len(g.Ladder), FitsPerOrder: g.FitsPerOrder, TotalFitsPerOrder: g.TotalFitsPerOrder,
-		E0Route: g.E0Route, AlphaSRoute: g.AlphaSRoute, ZeroTMethod: g.ZeroTMethod, ZeroTAlphaG: cj(g.ZeroTAlphaG)}
+		E0Route: g.E0Route, AlphaSRoute: g.AlphaSRoute, ZeroTMethod: g.ZeroTMethod, ZeroTFailure: g.ZeroTFailure, ZeroTAlphaG: cj(g.ZeroTAlphaG)}
 }
 
 func (s storedGround) ground(variable string, order int) (*energy.GroundSeries, error) {
@@ -395,6 +396,6 @@ func (s storedGround) ground(variable string, order int) (*energy.GroundSeries, 
 	co := func(c coeffJSON) energy.Coeffs { return energy.Coeffs{Values: c.Values, Errors: c.Errors} }
 	return &energy.GroundSeries{Variable: s.Variable, E0: co(s.E0), S0: co(s.S0), AlphaS: co(s.AlphaS), S0Exact: s.S0Exact,
 		BetaMin: s.BetaMin, BetaMax: s.BetaMax, FitsPerOrder: s.FitsPerOrder, TotalFitsPerOrder: s.TotalFitsPerOrder,
-		E0Route: s.E0Route, AlphaSRoute: s.AlphaSRoute, ZeroTMethod: s.ZeroTMethod, LadderOrders: len(s.S0.Values),
+		E0Route: s.E0Route, AlphaSRoute: s.AlphaSRoute, ZeroTMethod: s.ZeroTMethod, ZeroTFailure: s.ZeroTFailure, LadderOrders: len(s.S0.Values),
 		ZeroTAlphaG: co(s.ZeroTAlphaG)}, nil
 }

@@ -245,8 +245,8 @@ func groundNotes(end conformal.End, g *energy.GroundSeries, route []string) ([]s
 		}
 	}
 	if len(zt) == 0 {
-		if why, ok := strings.CutPrefix(g.ZeroTMethod, "not used: "); ok {
-			notes = append(notes, "The zero-temperature eps-series, which would compete per coefficient, failed: "+why+".")
+		if g.ZeroTFailure != "" {
+			notes = append(notes, "The zero-temperature eps-series, which would compete per coefficient, failed: "+g.ZeroTFailure+".")
 		}
 		return notes, ladder
 	}

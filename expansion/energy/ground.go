@@ -31,9 +31,11 @@ type GroundSeries struct {
 	// E0Route and AlphaSRoute say, per coefficient, which route gave it:
 	// RouteLadder (the low-temperature fits) or RouteZeroT (the
 	// zero-temperature eps-series, EpsZeroT), whichever states the smaller
-	// error; ZeroTMethod describes the latter whenever it ran.
+	// error; ZeroTMethod describes the latter whenever it ran, and
+	// ZeroTFailure says why it is missing when it ran and failed.
 	E0Route, AlphaSRoute []string
 	ZeroTMethod          string
+	ZeroTFailure         string
 	// LadderE0 and LadderAlphaS keep the ladder's own coefficients when
 	// the zero-temperature route was merged in (not kept by the cache).
 	LadderE0, LadderAlphaS Coeffs
@@ -225,7 +227,7 @@ func groundAroundTwo(p GroundParams, eps bool) (*GroundSeries, error) {
 				return nil, fmt.Errorf("%v; the zero-temperature eps-series that would complete the series failed: %w", ladderErr, err)
 			}
 			// The ladder's series stands; say why the other route is missing.
-			g.ZeroTMethod = "not used: " + err.Error()
+			g.ZeroTFailure = err.Error()
 			return g, nil
 		}
 		if progress != nil {
