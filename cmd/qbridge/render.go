@@ -454,10 +454,11 @@ func fmtErr(x *big.Float) string {
 }
 
 // fmtValue formats a computed value; one no larger than its own error
-// estimate is printed as 0 (it is zero to the accuracy known).
+// estimate keeps two significant digits (it is compatible with zero, but a
+// bare 0 would read as an exact zero).
 func fmtValue(x, err *big.Float, digits int) string {
-	if err != nil && new(big.Float).Abs(x).Cmp(err) <= 0 {
-		return "0"
+	if err != nil && x.Sign() != 0 && new(big.Float).Abs(x).Cmp(err) <= 0 {
+		return fmtBig(x, min(2, digits))
 	}
 	return fmtBig(x, digits)
 }

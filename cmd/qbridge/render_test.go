@@ -150,3 +150,22 @@ func TestSplitWide(t *testing.T) {
 		t.Errorf("columns kept: %d, want 12", cols)
 	}
 }
+
+// A value within its error keeps two significant digits: a bare 0 is kept
+// for an exact zero only.
+func TestFmtValueWithinError(t *testing.T) {
+	cases := []struct {
+		x, err float64
+		want   string
+	}{
+		{3.1e-5, 8.5e-4, "0.000031"},
+		{-2.26e-30, 7.9e-29, "-2.3e-30"},
+		{0, 1e-10, "0"},
+		{0.25, 1e-12, "0.250000000"},
+	}
+	for _, c := range cases {
+		if got := fmtValue(big.NewFloat(c.x), big.NewFloat(c.err), 9); got != c.want {
+			t.Errorf("fmtValue(%g, %g) = %q, want %q", c.x, c.err, got, c.want)
+		}
+	}
+}
