@@ -87,7 +87,7 @@ func Mul(a, b *Series) *Series {
 	n := minLen(a, b)
 	prec := maxPrec(a, b)
 	out := newZero(n, prec)
-	if n >= fixedMinLen && mulLowFixed(out.c, a.c, b.c, prec) {
+	if n >= fixedMinLen && mulLowFixed(out.c, a.c, b.c, prec, nil) {
 		return out
 	}
 	t := new(big.Float).SetPrec(prec)

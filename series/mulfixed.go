@@ -87,47 +87,60 @@ func bestScale(ia, ea, ib, eb []int) int {
 	return r
 }
 
-// packed is a factor in fixed point: coefficient i is
-// m_i 2^(top - width - r i), |m_i| < 2^width.
-type packed struct {
-	val   big.Int
-	top   int
-	width int
+// fixedWork is the scratch space of packed products; one serves a whole
+// sequence of them (the steps of a composition), so that the integers and
+// word buffers are allocated once instead of at every product.
+type fixedWork struct {
+	posA, negA, posB, negB []big.Word
+	a, b, n, z, m          big.Int
+	t                      big.Float
+	slot                   []big.Word
 }
 
-// pack returns c (after t -> 2^r t) in fixed point with the given slot
-// size in words. Truncation to width bits errs by less than one unit of the
-// last place of the smallest non-zero coefficient's prec+guard bits.
-func pack(c []*big.Float, r, top, width, slotWords int) *packed {
-	pos := make([]big.Word, len(c)*slotWords)
-	neg := make([]big.Word, len(c)*slotWords)
-	var t big.Float
-	var m big.Int
+// words returns buf resized to n zeroed words; it grows geometrically,
+// since the factors of a composition grow by one coefficient per step.
+func words(buf []big.Word, n int) []big.Word {
+	if cap(buf) < n {
+		return make([]big.Word, n, max(n, 2*cap(buf)))
+	}
+	buf = buf[:n]
+	clear(buf)
+	return buf
+}
+
+// pack sets dst to c (after t -> 2^r t) in fixed point, coefficient i
+// being m_i 2^(top - width - r i) with |m_i| < 2^width, in slots of
+// slotWords words; pos and neg are its word buffers, returned for reuse.
+// Truncation to width bits errs by less than one unit of the last place of
+// the smallest non-zero coefficient's prec+guard bits.
+func (w *fixedWork) pack(dst *big.Int, pos, neg []big.Word, c []*big.Float, r, top, width, slotWords int) ([]big.Word, []big.Word) {
+	pos = words(pos, len(c)*slotWords)
+	neg = words(neg, len(c)*slotWords)
 	for i, v := range c {
 		if v.Sign() == 0 {
 			continue
 		}
-		t.SetMantExp(v, r*i+width-top)
-		t.Int(&m)
-		dst := pos
-		if m.Sign() < 0 {
-			dst = neg
+		w.t.SetMantExp(v, r*i+width-top)
+		w.t.Int(&w.m)
+		buf := pos
+		if w.m.Sign() < 0 {
+			buf = neg
 		}
-		copy(dst[i*slotWords:(i+1)*slotWords], m.Bits())
+		copy(buf[i*slotWords:(i+1)*slotWords], w.m.Bits())
 	}
-	p := &packed{top: top, width: width}
-	var n big.Int
-	p.val.SetBits(pos)
-	n.SetBits(neg)
-	p.val.Sub(&p.val, &n)
-	return p
+	// dst and w.n alias the buffers; they are rebuilt at the next pack
+	dst.SetBits(pos)
+	w.n.SetBits(neg)
+	dst.Sub(dst, &w.n)
+	return pos, neg
 }
 
 // mulLowFixed writes into out the first len(out) coefficients of the
 // product of the series with coefficients a and b (missing ones zero), each
-// rounded to prec bits. It reports false, writing nothing, when the factors'
-// coefficients span too many binades for the packed product to pay off.
-func mulLowFixed(out, a, b []*big.Float, prec uint) bool {
+// rounded to prec bits, using the scratch space w (nil: its own). It
+// reports false, writing nothing, when the factors' coefficients span too
+// many binades for the packed product to pay off.
+func mulLowFixed(out, a, b []*big.Float, prec uint, w *fixedWork) bool {
 	n := len(out)
 	a, b = a[:min(len(a), n)], b[:min(len(b), n)]
 	ia, ea, okA := expProfile(a)
@@ -144,51 +157,58 @@ func mulLowFixed(out, a, b []*big.Float, prec uint) bool {
 	if sa > fixedMaxExtra || sb > fixedMaxExtra {
 		return false
 	}
+	if w == nil {
+		w = new(fixedWork)
+	}
 	wa := int(prec) + sa + fixedGuard
 	wb := int(prec) + sb + fixedGuard
 	// a slot holds |sum of min(len) products| < 2^(wa+wb+len bits) and a
 	// sign bit
 	slotBits := wa + wb + bits.Len(uint(min(len(a), len(b)))) + 1
 	slotWords := (slotBits + bits.UintSize) / bits.UintSize
-	pa := pack(a, r, topA, wa, slotWords)
-	pb := pack(b, r, topB, wb, slotWords)
-	var z big.Int
-	z.Mul(&pa.val, &pb.val)
-	unpack(out, &z, slotWords, prec, topA+topB-wa-wb, r)
+	w.posA, w.negA = w.pack(&w.a, w.posA, w.negA, a, r, topA, wa, slotWords)
+	w.posB, w.negB = w.pack(&w.b, w.posB, w.negB, b, r, topB, wb, slotWords)
+	w.z.Mul(&w.a, &w.b)
+	w.unpack(out, slotWords, prec, topA+topB-wa-wb, r)
 	return true
 }
 
-// unpack reads the first len(out) slots of z = sum_m c_m 2^(m slot), with
-// signed digits |c_m| < 2^(slot-1), and writes c_m 2^(shift - r m) into
-// out[m] at prec bits.
-func unpack(out []*big.Float, z *big.Int, slotWords int, prec uint, shift, r int) {
-	w := z.Bits() // |z|, little-endian
-	neg := z.Sign() < 0
-	var half, full, d big.Int
-	full.Lsh(big.NewInt(1), uint(slotWords*bits.UintSize))
-	half.Rsh(&full, 1)
-	carry := 0
-	buf := make([]big.Word, slotWords)
+// unpack reads the first len(out) slots of w.z = sum_m c_m 2^(m slot),
+// with signed digits |c_m| < 2^(slot-1), and writes c_m 2^(shift - r m)
+// into out[m] at prec bits.
+func (w *fixedWork) unpack(out []*big.Float, slotWords int, prec uint, shift, r int) {
+	z := w.z.Bits() // |z|, little-endian
+	neg := w.z.Sign() < 0
+	var carry uint
 	for m := range out {
-		clear(buf)
-		if lo := m * slotWords; lo < len(w) {
-			copy(buf, w[lo:min(lo+slotWords, len(w))])
+		w.slot = words(w.slot, slotWords)
+		d := w.slot
+		if lo := m * slotWords; lo < len(z) {
+			copy(d, z[lo:min(lo+slotWords, len(z))])
 		}
-		d.SetBits(buf)
-		if carry != 0 {
-			d.Add(&d, big.NewInt(1))
+		// d += carry; a digit at or above half the slot is negative: it
+		// stands for d - 2^slot and carries one into the next slot
+		for i := 0; carry != 0 && i < len(d); i++ {
+			var v uint
+			v, carry = bits.Add(uint(d[i]), carry, 0)
+			d[i] = big.Word(v)
 		}
-		carry = 0
-		if d.Cmp(&half) >= 0 {
-			d.Sub(&d, &full)
+		negDigit := d[len(d)-1]>>(bits.UintSize-1) != 0
+		if negDigit {
+			// |d - 2^slot| = two's complement of d
+			var borrow uint
+			for i := range d {
+				var v uint
+				v, borrow = bits.Sub(0, uint(d[i]), borrow)
+				d[i] = big.Word(v)
+			}
 			carry = 1
 		}
-		if neg {
-			d.Neg(&d)
+		w.m.SetBits(d)
+		if negDigit != neg {
+			w.m.Neg(&w.m)
 		}
-		o := out[m].SetPrec(prec).SetInt(&d)
+		o := out[m].SetPrec(prec).SetInt(&w.m)
 		o.SetMantExp(o, shift-r*m)
-		// SetBits may alias buf: detach before the next slot reuses it
-		buf = make([]big.Word, slotWords)
 	}
 }

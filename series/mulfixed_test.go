@@ -84,7 +84,7 @@ func TestMulLowFixedExact(t *testing.T) {
 				a := randomCoeffs(rng, c.lenA, c.prec, c.ga, c.jit, c.tiny, c.zeros)
 				b := randomCoeffs(rng, c.lenB, c.prec, c.gb, c.jit, c.tiny, c.zeros)
 				out := newFloats(c.n, c.prec)
-				if !mulLowFixed(out, a, b, c.prec) {
+				if !mulLowFixed(out, a, b, c.prec, nil) {
 					t.Fatalf("packed product declined")
 				}
 				want, mag := exactProduct(a, b, c.n)
@@ -120,7 +120,7 @@ func TestMulLowFixedDeclines(t *testing.T) {
 		b[k].SetMantExp(big.NewFloat(1), 0)
 	}
 	a[5].SetMantExp(big.NewFloat(1), -5000)
-	if mulLowFixed(newFloats(12, prec), a, b, prec) {
+	if mulLowFixed(newFloats(12, prec), a, b, prec, nil) {
 		t.Fatalf("packed product taken for a factor spanning 5000 binades")
 	}
 	sa, sb := &Series{prec: prec, c: a}, &Series{prec: prec, c: b}
@@ -143,7 +143,7 @@ func TestMulLowFixedZeros(t *testing.T) {
 	a, b, out := newFloats(15, prec), newFloats(15, prec), newFloats(15, prec)
 	b[3].SetInt64(7)
 	out[2].SetInt64(5)
-	if !mulLowFixed(out, a, b, prec) {
+	if !mulLowFixed(out, a, b, prec, nil) {
 		t.Fatal("declined")
 	}
 	for m, o := range out {

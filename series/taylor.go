@@ -57,9 +57,10 @@ func ComposeTaylor(taylor []*big.Float, s *Series) (*Series, error) {
 	acc, next := newFloats(n, prec), newFloats(n, prec)
 	acc[0].Set(taylor[n-1])
 	t := new(big.Float).SetPrec(prec)
+	w := new(fixedWork)
 	l := 1
 	for k := n - 2; k >= 0; k-- {
-		mulByShifted(next[:l+1], acc[:l], u, t)
+		mulByShifted(next[:l+1], acc[:l], u, t, w)
 		acc, next = next, acc
 		l++
 		acc[0].Set(taylor[k])
@@ -78,10 +79,10 @@ func newFloats(n int, prec uint) []*big.Float {
 
 // mulByShifted writes into next the first len(next) = len(acc)+1
 // coefficients of acc * (u - u(0)), whose constant term is zero; t is
-// scratch space.
-func mulByShifted(next, acc, u []*big.Float, t *big.Float) {
+// scratch space, and w that of the packed product.
+func mulByShifted(next, acc, u []*big.Float, t *big.Float, w *fixedWork) {
 	next[0].SetInt64(0)
-	if len(next) > fixedMinLen && mulLowFixed(next[1:], acc, u[1:], t.Prec()) {
+	if len(next) > fixedMinLen && mulLowFixed(next[1:], acc, u[1:], t.Prec(), w) {
 		return
 	}
 	for m := 1; m < len(next); m++ {
