@@ -84,52 +84,6 @@ type bigJet struct {
 // cf returns the real number v as a complex at prec bits.
 func cf(v float64, prec uint) scalar.Complex { return scalar.ComplexFloat64(v, 0, prec) }
 
-// kernelJetBig evaluates k_A(h, D) (MS 2016, arXiv:1604.07818; PHYSICS.md
-// section 4) and L_h, L_D, L_hh, L_hD of L = log k_A at complex h and D,
-// from the complex log Gamma of package scalar and complexPsi. With full
-// false only k_A and L_h are computed.
-func kernelJetBig(h, d scalar.Complex, prec uint, full bool) (bigJet, error) {
-	wp := prec + 16
-	var j bigJet
-	one := cf(1, wp)
-	inv, err := scalar.CDiv(one, d, wp)
-	if err != nil {
-		return j, err
-	}
-	L, err := scalar.CLog(scalar.CSub(one, inv, wp), wp)
-	if err != nil {
-		return j, err
-	}
-	if j.ld, err = scalar.CDiv(one, scalar.CMul(d, scalar.CSub(d, one, wp), wp), wp); err != nil {
-		return j, err
-	}
-	j.lh, j.lhh, j.lhd = cf(0, wp), cf(0, wp), cf(0, wp)
-	for _, a := range kernelArgs {
-		z := scalar.CAdd(cf(a.a, wp), scalar.CAdd(scalar.CScale(h, big.NewFloat(a.b), wp), scalar.CScale(d, big.NewFloat(a.c), wp), wp), wp)
-		lg, err := scalar.CLogGamma(z, wp)
-		if err != nil {
-			return j, err
-		}
-		sg := big.NewFloat(a.sign)
-		L = scalar.CAdd(L, scalar.CScale(lg, sg, wp), wp)
-		if !full && a.b == 0 {
-			continue
-		}
-		ps, tg, err := complexPsi(z, wp, full)
-		if err != nil {
-			return j, err
-		}
-		j.lh = scalar.CAdd(j.lh, scalar.CScale(ps, big.NewFloat(a.sign*a.b), wp), wp)
-		j.ld = scalar.CAdd(j.ld, scalar.CScale(ps, big.NewFloat(a.sign*a.c), wp), wp)
-		if full && a.b != 0 {
-			j.lhh = scalar.CAdd(j.lhh, scalar.CScale(tg, big.NewFloat(a.sign*a.b*a.b), wp), wp)
-			j.lhd = scalar.CAdd(j.lhd, scalar.CScale(tg, big.NewFloat(a.sign*a.b*a.c), wp), wp)
-		}
-	}
-	j.k = scalar.CExp(L, wp)
-	return j, nil
-}
-
 // cSize is max(|Re z|, |Im z|) as a float64 (0 for z = 0).
 func cSize(z scalar.Complex) float64 {
 	a, _ := new(big.Float).Abs(z.Re).Float64()
@@ -193,30 +147,6 @@ func refineCollision(h, d scalar.Complex, prec uint) (scalar.Complex, scalar.Com
 		last = size
 	}
 	return h, d, bigJet{}, fmt.Errorf("expansion: Newton's method on the collision system did not converge")
-}
-
-// newtonHBig solves k_A(h, D) = 1 for h at fixed complex D from h0.
-func newtonHBig(h0, d scalar.Complex, prec uint) (scalar.Complex, error) {
-	h := h0
-	tol := math.Ldexp(1, -int(prec)+8)
-	last := math.Inf(1)
-	for it := 0; it < 80; it++ {
-		j, err := kernelJetBig(h, d, prec, false)
-		if err != nil {
-			return h, err
-		}
-		step, err := scalar.CDiv(scalar.CSub(j.k, cf(1, prec), prec), scalar.CMul(j.k, j.lh, prec), prec)
-		if err != nil {
-			return h, err
-		}
-		h = scalar.CSub(h, step, prec)
-		size := cSize(step)
-		if size <= tol*(1+cSize(h)) || (size >= last && size < math.Sqrt(tol)) {
-			return h, nil
-		}
-		last = size
-	}
-	return h, fmt.Errorf("expansion: Newton's method for k_A(h) = 1 did not converge")
 }
 
 // sOfDeltaBig and deltaOfBig map between s and Delta at prec bits.
@@ -285,36 +215,6 @@ func errOf(a, b scalar.Complex, precLo uint) *big.Float {
 	e := cDist(a, b)
 	ulp := math.Ldexp(cSize(a)+1e-300, -int(precLo)+4)
 	return e.Add(e, big.NewFloat(ulp))
-}
-
-// checkSquareRoot solves k_A(h) = 1 at s = s*(1 - delta) from
-// h* +- A delta^(1/2) (A = c (-s*)^(1/2)) and returns the largest relative
-// deviation of (h - h*)/(+-A delta^(1/2)) from 1, which is O(delta^(1/2))
-// at a square-root branch point with coefficient c.
-func checkSquareRoot(end End, r *refined, delta float64, prec uint) (float64, error) {
-	db := new(big.Float).SetPrec(prec).SetFloat64(delta)
-	sd := scalar.CScale(r.s, new(big.Float).SetPrec(prec).Sub(bigInt(1, prec), db), prec)
-	d := deltaOfBig(end, sd, prec)
-	step := scalar.CScale(r.a, new(big.Float).SetPrec(prec).Sqrt(db), prec)
-	worst := 0.0
-	var roots []scalar.Complex
-	for _, sg := range []float64{1, -1} {
-		st := scalar.CScale(step, big.NewFloat(sg), prec)
-		h, err := newtonHBig(scalar.CAdd(r.h, st, prec), d, prec)
-		if err != nil {
-			return 0, err
-		}
-		ratio, err := scalar.CDiv(scalar.CSub(h, r.h, prec), st, prec)
-		if err != nil {
-			return 0, err
-		}
-		worst = math.Max(worst, cmplx.Abs(ratio.Complex128()-1))
-		roots = append(roots, h)
-	}
-	if cmplx.Abs(roots[0].Complex128()-roots[1].Complex128()) < cmplx.Abs(step.Complex128()) {
-		return 0, fmt.Errorf("expansion: the two roots beside the collision coincide")
-	}
-	return worst, nil
 }
 
 // scanCache holds the coarse searches, by end and level.
@@ -498,8 +398,8 @@ func refineSingularity(end End, n int, col collision, p1, p2 uint) (*Singularity
 	}
 	// type: the two roots beside the point are h* +- c (s - s*)^(1/2), with
 	// a relative deviation that falls like |s - s*|^(1/2)
-	dev1, err1 := checkSquareRoot(end, hi, 1e-8, p2)
-	dev2, err2 := checkSquareRoot(end, hi, 1e-12, p2)
+	dev1, err1 := checkSquareRoot(end, hi, 1e-8)
+	dev2, err2 := checkSquareRoot(end, hi, 1e-12)
 	switch {
 	case err1 != nil || err2 != nil:
 		sg.Kind = "branch point (square-root type not confirmed)"

@@ -76,22 +76,33 @@ func levelBase(end End, m int) float64 {
 	return float64(2*m + 1)
 }
 
-// newtonH128 solves k_A(h, D(s)) = 1 for h from h0.
-func newtonH128(end End, h0, s complex128, maxIt int) (complex128, jet128, bool) {
-	pre := kernelPrefactor128(deltaOf(end, s))
+// newtonH128 solves k_A(h, D(s)) = 1 for h from h0 (two-Gamma form,
+// kerneltwo128.go). It stops when the step is below 1e-12 (1 + |h|), or,
+// with early, when the error left after it is: once two steps show the
+// quadratic convergence e' = M e^2, that error is about M step^2 with
+// M = step/step_prev^2 (early serves the scan rays, which only seed the
+// collision Newton; verification and the partner level, whose continuation
+// must not jump roots, use the full test). The jet returned is the one of the last
+// iteration, taken before that step: the tangent and |dh/dt| built from it
+// are as good as at h, and a further evaluation is saved.
+func newtonH128(end End, h0, s complex128, maxIt int, early bool) (complex128, jet128, bool) {
+	pre := twoPrefactor128(deltaOf(end, s))
 	h := h0
 	var j jet128
+	prev := math.Inf(1)
 	for it := 0; it < maxIt; it++ {
-		j = kernelJetPre128(h, pre, false)
+		j = twoJet128(h, pre)
 		step := (j.k - 1) / (j.k * j.lh)
 		if !finite128(step) {
 			return h, j, false
 		}
 		h -= step
-		if cmplx.Abs(step) < 1e-12*(1+cmplx.Abs(h)) {
-			j = kernelJetPre128(h, pre, false)
+		a := cmplx.Abs(step)
+		tol := 1e-12 * (1 + cmplx.Abs(h))
+		if a < tol || (early && it > 0 && a < 1e-3*prev && a*a*a < 0.1*tol*prev*prev) {
 			return h, j, true
 		}
+		prev = a
 	}
 	return h, j, false
 }
@@ -108,7 +119,7 @@ func levelStart128(end End, m int, u complex128) (complex128, error) {
 		return 0, err
 	}
 	base := levelBase(end, m)
-	h, _, ok := newtonH128(end, complex(base, 0)+complex(scanStart*y, 0)*u, complex(scanStart, 0)*u, 40)
+	h, _, ok := newtonH128(end, complex(base, 0)+complex(scanStart*y, 0)*u, complex(scanStart, 0)*u, 40, false)
 	if !ok {
 		return 0, fmt.Errorf("expansion: no start for h_%d at s = %g in direction %v", m, scanStart, u)
 	}
@@ -172,9 +183,9 @@ var errRunaway = errors.New("expansion: the level runs off to infinity")
 
 // follow128 continues the root h0 at s = ta u to s = tb u (ta, tb > 0,
 // either direction), calling visit after every accepted step. stepCap
-// bounds the step in t.
+// bounds the step in t. The scan (visit set) lets Newton stop early.
 func follow128(end End, u complex128, ta, tb float64, h0 complex128, stepCap float64, visit func(rayPoint)) (complex128, error) {
-	h, j, ok := newtonH128(end, h0, complex(ta, 0)*u, 40)
+	h, j, ok := newtonH128(end, h0, complex(ta, 0)*u, 40, false)
 	if !ok {
 		return h, fmt.Errorf("expansion: continuation start did not converge at s = %v", complex(ta, 0)*u)
 	}
@@ -199,7 +210,7 @@ func follow128(end End, u complex128, ta, tb float64, h0 complex128, stepCap flo
 		}
 		dh := tangent(end, u, j)
 		pred := h + dh*complex(tn-t, 0)
-		hn, jn, ok := newtonH128(end, pred, complex(tn, 0)*u, 8)
+		hn, jn, ok := newtonH128(end, pred, complex(tn, 0)*u, 8, visit != nil)
 		if !ok || cmplx.Abs(hn-pred) > 0.1*cmplx.Abs(dh)*math.Abs(tn-t)+1e-10*(1+cmplx.Abs(h)) {
 			dt /= 2
 			continue
@@ -217,11 +228,12 @@ func follow128(end End, u complex128, ta, tb float64, h0 complex128, stepCap flo
 }
 
 // newton2x2 solves k_A(h, D) = 1, L_h(h, D) = 0 (L = log k_A) from (h, d)
-// in complex128; the steps are damped to at most 0.5 in h.
+// in complex128 (two-Gamma form, kerneltwo128.go); the steps are damped
+// to at most 0.5 in h.
 func newton2x2(h, d complex128) (complex128, complex128, jet128, bool) {
 	var j jet128
 	for it := 0; it < 60; it++ {
-		j = kernelJet128(h, d, true)
+		j = twoJetFull128(h, d)
 		f1, f2 := j.k-1, j.lh
 		det := j.k*j.lh*j.lhd - j.k*j.ld*j.lhh
 		dh := (f1*j.lhd - j.k*j.ld*f2) / det
@@ -236,7 +248,7 @@ func newton2x2(h, d complex128) (complex128, complex128, jet128, bool) {
 		h -= dh
 		d -= dd
 		if cmplx.Abs(dh)+cmplx.Abs(dd) < 1e-13*(1+cmplx.Abs(h)) {
-			j = kernelJet128(h, d, true)
+			j = twoJetFull128(h, d)
 			return h, d, j, cmplx.Abs(j.k-1) < 1e-9
 		}
 	}
@@ -337,7 +349,15 @@ func scanCollisions(end End, n int) (*scanResult, error) {
 			cands = append(cands, cand{h, s, j})
 		}
 	}
-	sort.Slice(cands, func(a, b int) bool { return cmplx.Abs(cands[a].s) < cmplx.Abs(cands[b].s) })
+	// by |s|; points of equal modulus (the mirror pairs s, -conj(s) around
+	// q = 2) by decreasing Re s, so that rounding does not pick the order
+	sort.SliceStable(cands, func(a, b int) bool {
+		ra, rb := cmplx.Abs(cands[a].s), cmplx.Abs(cands[b].s)
+		if math.Abs(ra-rb) > 1e-9*ra {
+			return ra < rb
+		}
+		return real(cands[a].s) > real(cands[b].s)
+	})
 	for _, c := range cands {
 		if cmplx.Abs(c.j.ld) < 1e-8 {
 			// k_A(h*, D) = 1 for every D: h = 2 or its mirror -1 crossing h_n
@@ -396,7 +416,7 @@ func verifyCollision(end End, n int, hs, ss complex128, j jet128) (collision, bo
 	col := collision{h: hs, s: ss, c: complex(sigma, 0) * c}
 	col.levels = fmt.Sprintf("h_%d and an unidentified root", n)
 	// the partner: the other root near h*, continued back to the start
-	hb, _, ok := newtonH128(end, 2*hs-ha, complex(ta, 0)*u, 40)
+	hb, _, ok := newtonH128(end, 2*hs-ha, complex(ta, 0)*u, 40, false)
 	if !ok || cmplx.Abs(hb-ha) < 0.5*cmplx.Abs(ha-hs) {
 		return col, true
 	}
