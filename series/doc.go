@@ -10,6 +10,13 @@
 // come from a global. Binary operations return a series whose length is the
 // shorter of the two operands and whose precision is the larger.
 //
+// Products of ten or more terms (Mul and the Horner steps of ComposeTaylor)
+// go by Kronecker substitution: both factors in fixed point, packed into
+// one big integer each and multiplied once. Each factor keeps at least
+// prec + 8 bits in every non-zero coefficient (an exact change of variable
+// t -> 2^r t first flattens geometric growth), so every coefficient is as
+// accurate as the schoolbook sum.
+//
 // Functions of a series follow one shape: F(s) is the Taylor expansion of F
 // at s(0) composed with the non-constant part s - s(0). So special.LogGamma(s)
 // for a series s is the series of log Gamma(s(t)) in t, and callers can write

@@ -579,9 +579,17 @@ func (e *logEquation) seriesRoot(y0 *big.Float, n int, verify bool) (*series.Ser
 	e.tayLen = n + 1
 	defer func() { e.tayLen = 0 }()
 	// Newton on series doubles the number of correct coefficients per
-	// step, so the early steps run on truncations of length 2, 4, 8, ...:
-	// together they cost about one step at full length.
-	for l := 2; l < n; l *= 2 {
+	// step, so the early steps run on truncations of lengths ..., n/4, n/2
+	// (rounded up), each twice the last: together they cost less than one
+	// step at full length, and the step at length n completes the root.
+	var lengths []int
+	for l := (n + 1) / 2; l >= 2; l = (l + 1) / 2 {
+		lengths = append([]int{l}, lengths...)
+		if l == 2 {
+			break
+		}
+	}
+	for _, l := range lengths {
 		yl, err := y.Truncate(l)
 		if err != nil {
 			return nil, nil, err

@@ -9,7 +9,10 @@
 //
 // Precision is always an explicit argument in bits (1 <= prec <= MaxPrec);
 // results are correct to that precision after rounding. Constants are
-// cached at the highest precision asked for so far, in this package only.
+// cached at the highest precision asked for so far, and the Taylor lists of
+// log Gamma at points with short binary expansions (the integers and
+// half-integers of the series engines) per point and precision, in this
+// package only.
 //
 // It must not depend on the series type or on any other qbridge package:
 // everything else builds on it.
