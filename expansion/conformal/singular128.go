@@ -69,21 +69,13 @@ func psi128(z complex128) complex128 {
 
 // trigamma128 returns psi'(z): reflection psi'(z) = pi^2/sin^2(pi z) -
 // psi'(1-z) (DLMF 5.15.6) for Re z < 1/2, else the recurrence and the
-// asymptotic series DLMF 5.15.8 to z^-11.
+// asymptotic series of trigammaShift128.
 func trigamma128(z complex128) complex128 {
 	if real(z) < 0.5 {
 		s := cmplx.Sin(complex(math.Pi, 0) * z)
 		return complex(math.Pi*math.Pi, 0)/(s*s) - trigamma128(1-z)
 	}
-	acc := complex(0, 0)
-	for real(z) < stirlingShift {
-		acc += 1 / (z * z)
-		z++
-	}
-	w := 1 / z
-	w2 := w * w
-	ser := w * w2 * (1.0/6 + w2*(-1.0/30+w2*(1.0/42+w2*(-1.0/30+w2*(5.0/66)))))
-	return acc + w + 0.5*w2 + ser
+	return trigammaShift128(z)
 }
 
 // kernelArg is one Gamma factor Gamma(a + b h + c D)^sign of k_A.
