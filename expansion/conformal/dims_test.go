@@ -170,6 +170,32 @@ func TestDimensionSeriesErrors(t *testing.T) {
 	}
 }
 
+// The stated errors cover the true errors: every coefficient of
+// DimensionSeries (the first precision's solve stops without a confirming
+// Newton step, the second refines it once) against a solve at three times
+// the precision that iterates until the correction is below its precision.
+func TestDimensionSeriesErrorsCoverTruth(t *testing.T) {
+	for _, end := range []End{AroundTwo, AroundInf} {
+		for n := 1; n <= 4; n++ {
+			c, err := DimensionSeries(end, n, 30, 30)
+			if err != nil {
+				t.Fatal(err)
+			}
+			ref, err := dimensionSeries(end, n, 30, 3*c.Prec)
+			if err != nil {
+				t.Fatal(err)
+			}
+			for k, v := range c.Values {
+				d := new(big.Float).Sub(v, ref[k])
+				d.Abs(d)
+				if c.Errors[k].Sign() <= 0 || d.Cmp(c.Errors[k]) > 0 {
+					t.Errorf("h_%d around %s, order %d: true error %.2g above the stated %.2g", n, end, k, d, c.Errors[k])
+				}
+			}
+		}
+	}
+}
+
 // The eps series summed at small eps reproduces the exact dimension.
 func TestSeriesAgreesWithExact(t *testing.T) {
 	for _, c := range []struct {

@@ -40,7 +40,9 @@ type Coefficients struct {
 	Values []*big.Float
 	// Errors holds the estimated absolute error of each coefficient:
 	// Errors[k] is the difference between the two runs for Values[k] plus a
-	// few units in the last place.
+	// few units in the last place of the lower precision (of the larger of
+	// Values[k] and its neighbours, so that a vanishing coefficient states
+	// the rounding of the terms it is summed from).
 	Errors []*big.Float
 	// Radius estimates the radius of convergence in the expansion variable
 	// (RadiusErr its uncertainty); nil when the coefficients do not allow it.
@@ -56,7 +58,9 @@ type Coefficients struct {
 }
 
 // pairErrors returns the values of the more precise run and, as error, the
-// difference of the two runs plus a few units in the last place.
+// difference of the two runs plus a few units in the last place of the
+// lower precision, taken of the larger of the coefficient and its two
+// neighbours.
 func pairErrors(lo, hi []*big.Float, precLo uint) (vals, errs []*big.Float) {
 	vals = make([]*big.Float, len(hi))
 	errs = make([]*big.Float, len(hi))
@@ -64,7 +68,16 @@ func pairErrors(lo, hi []*big.Float, precLo uint) (vals, errs []*big.Float) {
 		vals[i] = hi[i]
 		d := new(big.Float).SetPrec(64).Sub(hi[i], lo[i])
 		d.Abs(d)
+		// The rounding floor is relative to the larger of the coefficient
+		// and its neighbours: a coefficient that vanishes (or nearly) is
+		// summed from terms of its neighbours' size, and its rounding
+		// noise is of their size, not of its own.
 		ulp := new(big.Float).SetPrec(64).Abs(hi[i])
+		for _, j := range []int{i - 1, i + 1} {
+			if j >= 0 && j < len(hi) && new(big.Float).Abs(hi[j]).Cmp(ulp) > 0 {
+				ulp.Abs(hi[j])
+			}
+		}
 		if ulp.Sign() == 0 {
 			ulp.SetInt64(1)
 		}
