@@ -415,28 +415,76 @@ func verifyCollision(end End, n int, hs, ss complex128, j jet128) (collision, bo
 	}
 	col := collision{h: hs, s: ss, c: complex(sigma, 0) * c}
 	col.levels = fmt.Sprintf("h_%d and an unidentified root", n)
-	// the partner: the other root near h*, continued back to the start
-	hb, _, ok := newtonH128(end, 2*hs-ha, complex(ta, 0)*u, 40, false)
-	if !ok || cmplx.Abs(hb-ha) < 0.5*cmplx.Abs(ha-hs) {
+	// the partner: the other root near h*
+	hp, _, ok := newtonH128(end, 2*hs-ha, complex(ta, 0)*u, 40, false)
+	if !ok || cmplx.Abs(hp-ha) < 0.5*cmplx.Abs(ha-hs) {
 		return col, true
 	}
-	hb, err = follow128(end, u, ta, scanStart, hb, r/60, nil)
-	if err != nil {
-		return col, true
-	}
-	if debugScan {
-		fmt.Printf("partner back: %v\n", hb)
-	}
-	if name, ok := identifyLevel(end, u, hb); ok {
-		col.levels = fmt.Sprintf("h_%d and %s", n, name)
+	if lv, ok := partnerLevel(end, n, u, ta, r, ha, hp); ok {
+		col.levels = fmt.Sprintf("h_%d and %s", n, lv)
 	}
 	return col, true
 }
 
+// level names a root at the start of a ray: h_m, or the mirror root
+// 1 - h_m (k_A is symmetric under h -> 1 - h).
+type level struct {
+	m      int
+	mirror bool
+}
+
+func (l level) String() string {
+	if l.mirror {
+		return fmt.Sprintf("the mirror root 1 - h_%d", l.m)
+	}
+	return fmt.Sprintf("h_%d", l.m)
+}
+
+// partnerLevel names the root hp that meets h_n (ha, at s = ta u next to
+// the collision). The candidate is read off by continuing hp back to the
+// start of the ray; it is accepted only if that level, continued forward
+// along the ray, arrives at hp rather than at ha (a backward continuation
+// next to other near-collisions can jump roots; the forward one of a
+// candidate is the same test as the one h_n passed). Where the candidate
+// fails, the neighbouring levels n +- 1, n +- 2, n +- 3 are tried forward.
+func partnerLevel(end End, n int, u complex128, ta, r float64, ha, hp complex128) (level, bool) {
+	reaches := func(l level) bool {
+		if l.m < 0 || l.m > MaxN || (l.m == n && !l.mirror) {
+			return false
+		}
+		h0, err := levelStart128(end, l.m, u)
+		if err != nil {
+			return false
+		}
+		if l.mirror {
+			h0 = 1 - h0
+		}
+		h, err := follow128(end, u, scanStart, ta, h0, r/60, nil)
+		if err != nil {
+			return false
+		}
+		return cmplx.Abs(h-hp) < 0.25*cmplx.Abs(ha-hp)
+	}
+	if hb, err := follow128(end, u, ta, scanStart, hp, r/60, nil); err == nil {
+		if debugScan {
+			fmt.Printf("partner back: %v\n", hb)
+		}
+		if l, ok := identifyLevel(end, u, hb); ok && reaches(l) {
+			return l, true
+		}
+	}
+	for _, d := range []int{1, -1, 2, -2, 3, -3} {
+		if l := (level{m: n + d}); reaches(l) {
+			return l, true
+		}
+	}
+	return level{}, false
+}
+
 // identifyLevel names the root h at s = scanStart u: h_m or the mirror
-// root 1 - h_m (k_A is symmetric under h -> 1 - h), by the nearest value
-// at the end and then by comparison with the continued level.
-func identifyLevel(end End, u complex128, h complex128) (string, bool) {
+// root 1 - h_m, by the nearest value at the end and then by comparison
+// with the continued level.
+func identifyLevel(end End, u complex128, h complex128) (level, bool) {
 	for _, mirror := range []bool{false, true} {
 		v := h
 		if mirror {
@@ -457,12 +505,9 @@ func identifyLevel(end End, u complex128, h complex128) (string, bool) {
 		if err != nil || cmplx.Abs(hm-v) > 1e-6*(1+cmplx.Abs(v)) {
 			continue
 		}
-		if mirror {
-			return fmt.Sprintf("the mirror root 1 - h_%d", m), true
-		}
-		return fmt.Sprintf("h_%d", m), true
+		return level{m: m, mirror: mirror}, true
 	}
-	return "", false
+	return level{}, false
 }
 
 func abs128(z complex128) float64 { return cmplx.Abs(z) }
