@@ -111,8 +111,9 @@ func words(buf []big.Word, n int) []big.Word {
 // pack sets dst to c (after t -> 2^r t) in fixed point, coefficient i
 // being m_i 2^(top - width - r i) with |m_i| < 2^width, in slots of
 // slotWords words; pos and neg are its word buffers, returned for reuse.
-// Truncation to width bits errs by less than one unit of the last place of
-// the smallest non-zero coefficient's prec+guard bits.
+// A coefficient of at most prec bits becomes an exact integer (width leaves
+// at least guard bits below its last one); a longer one is truncated, by
+// less than one unit in the last place of prec+guard bits.
 func (w *fixedWork) pack(dst *big.Int, pos, neg []big.Word, c []*big.Float, r, top, width, slotWords int) ([]big.Word, []big.Word) {
 	pos = words(pos, len(c)*slotWords)
 	neg = words(neg, len(c)*slotWords)
@@ -139,10 +140,17 @@ func (w *fixedWork) pack(dst *big.Int, pos, neg []big.Word, c []*big.Float, r, t
 // product of the series with coefficients a and b (missing ones zero), each
 // rounded to prec bits, using the scratch space w (nil: its own). It
 // reports false, writing nothing, when the factors' coefficients span too
-// many binades for the packed product to pay off.
+// many binades for the packed product to pay off, or hold an infinity.
 func mulLowFixed(out, a, b []*big.Float, prec uint, w *fixedWork) bool {
 	n := len(out)
 	a, b = a[:min(len(a), n)], b[:min(len(b), n)]
+	for _, c := range [][]*big.Float{a, b} {
+		for _, v := range c {
+			if v.IsInf() {
+				return false // the schoolbook product propagates it
+			}
+		}
+	}
 	ia, ea, okA := expProfile(a)
 	ib, eb, okB := expProfile(b)
 	if !okA || !okB {

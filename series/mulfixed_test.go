@@ -162,3 +162,25 @@ func BenchmarkMulOrder43Prec239(b *testing.B) {
 		Mul(x, y)
 	}
 }
+
+// TestMulLowFixedInfinity checks that an infinite coefficient is left to
+// the schoolbook product (which propagates it) instead of being packed as
+// a stale integer.
+func TestMulLowFixedInfinity(t *testing.T) {
+	prec := uint(80)
+	a, b := newFloats(12, prec), newFloats(12, prec)
+	for k := range a {
+		a[k].SetInt64(int64(k + 1))
+		b[k].SetInt64(1)
+	}
+	a[3].SetInf(false)
+	if mulLowFixed(newFloats(12, prec), a, b, prec, nil) {
+		t.Fatal("packed product taken with an infinite coefficient")
+	}
+	p := Mul(&Series{prec: prec, c: a}, &Series{prec: prec, c: b})
+	for m := 3; m < 12; m++ {
+		if !p.c[m].IsInf() {
+			t.Errorf("coefficient %d = %s, want +Inf", m, p.c[m].Text('g', 5))
+		}
+	}
+}

@@ -34,14 +34,24 @@ func dimensionSeriesFrom(end End, n, order int, prec uint, seed []*big.Float, ve
 	}
 	var y *series.Series
 	if seed != nil && len(seed) == length-1 {
-		y, _, err = eq.seriesRootFrom(seed)
-	} else {
+		var step *big.Float
+		y, step, err = eq.seriesRootFrom(seed)
+		// The refinement is one Newton step: it leaves about the square of
+		// the seed's error only if that error (the step) is well inside
+		// Newton's quadratic regime; otherwise the root is solved afresh,
+		// to convergence.
+		if err == nil && !refinable(y, step, seed) {
+			y = nil
+		}
+	}
+	if y == nil && err == nil {
 		var y0 *big.Float
 		y0, _, err = kernelRoot(eq, f, end, n, nil, fmt.Sprintf("h_%d at the %s end", n, end))
 		if err != nil {
 			return nil, nil, err
 		}
-		y, _, err = eq.seriesRoot(y0, length-1, verify)
+		// a run that no refinement follows confirms its own convergence
+		y, _, err = eq.seriesRoot(y0, length-1, verify || seed != nil)
 	}
 	if err != nil {
 		return nil, nil, fmt.Errorf("h_%d at the %s end: %w", n, end, err)
@@ -51,6 +61,17 @@ func dimensionSeriesFrom(end End, n, order int, prec uint, seed []*big.Float, ve
 		return nil, nil, errors.New("expansion: internal error: dimension series came out short")
 	}
 	return h.Coeffs()[:order+1], y.Coeffs(), nil
+}
+
+// refinable reports whether one Newton step from seed (of size step,
+// giving y) has left an error far below the step: the step must be below
+// 2^-(p/2) of the root's scale, p the seed's precision.
+func refinable(y *series.Series, step *big.Float, seed []*big.Float) bool {
+	if step.Sign() == 0 {
+		return true
+	}
+	scale := max(maxAbs(y).MantExp(nil), 1)
+	return step.MantExp(nil) < scale-int(seed[0].Prec())/2
 }
 
 // DimensionSeries returns the Taylor coefficients h_n,0 .. h_n,order of

@@ -35,16 +35,22 @@ type term struct {
 	// so it is evaluated once, at the full length of a, instead of at
 	// every Newton step.
 	fixed *series.Series
+	// indep caches independent: 0 not yet known, 1 yes, 2 no.
+	indep int8
 }
 
 // independent reports whether b vanishes identically.
 func (tm *term) independent() bool {
-	for k := 0; k < tm.b.Len(); k++ {
-		if tm.b.Coeff(k).Sign() != 0 {
-			return false
+	if tm.indep == 0 {
+		tm.indep = 1
+		for k := 0; k < tm.b.Len(); k++ {
+			if tm.b.Coeff(k).Sign() != 0 {
+				tm.indep = 2
+				break
+			}
 		}
 	}
-	return true
+	return tm.indep == 1
 }
 
 // logGammaTaylor returns at least n Taylor coefficients of log Gamma at u0,
@@ -605,11 +611,12 @@ func (e *logEquation) seriesRoot(y0 *big.Float, n int, verify bool) (*series.Ser
 			}
 		}
 	}
+	done := 1 // coefficients correct before the full-length steps
+	if len(lengths) > 0 {
+		done = lengths[len(lengths)-1]
+	}
 	var last *big.Float
 	maxIter := 8
-	if !verify {
-		maxIter = 1
-	}
 	for it := 0; it < maxIter; it++ {
 		corr, err := e.newtonCorrection(y)
 		if err != nil {
@@ -625,10 +632,19 @@ func (e *logEquation) seriesRoot(y0 *big.Float, n int, verify bool) (*series.Ser
 				return nil, nil, err
 			}
 		}
-		if !verify {
-			return y, size, nil
-		}
 		scale := max(maxAbs(y).MantExp(nil), 1)
+		if !verify && it == 0 {
+			// The step completed the doubling if it left the coefficients
+			// the doubling had fixed (nearly) alone; otherwise the
+			// iteration goes on as with verify.
+			low, err := corr.Truncate(min(done, corr.Len()))
+			if err != nil {
+				return nil, nil, err
+			}
+			if ls := maxAbs(low); ls.Sign() == 0 || ls.MantExp(nil) < scale-int(e.prec)/2 {
+				return y, size, nil
+			}
+		}
 		if size.Sign() == 0 || size.MantExp(nil) < scale-int(e.prec)+8 {
 			return y, size, nil
 		}
