@@ -591,9 +591,6 @@ func (e *logEquation) seriesRoot(y0 *big.Float, n int, verify bool) (*series.Ser
 	var lengths []int
 	for l := (n + 1) / 2; l >= 2; l = (l + 1) / 2 {
 		lengths = append([]int{l}, lengths...)
-		if l == 2 {
-			break
-		}
 	}
 	for _, l := range lengths {
 		yl, err := y.Truncate(l)
