@@ -15,14 +15,6 @@ import (
 // used; below it the recurrences shift the argument up.
 const stirlingShift = 12
 
-// lgamma128 returns log Gamma(z) modulo 2 pi i (only exp of sums of it is
-// used). Reflection (DLMF 5.5.3) for Re z < 1/2, else the recurrence up to
-// Re z >= 12 and Stirling's series (DLMF 5.11.1) to z^-9.
-func lgamma128(z complex128) complex128 {
-	l, _ := lgammaPsi128(z)
-	return l
-}
-
 // lgammaPsi128 returns log Gamma(z) (modulo 2 pi i) and psi(z) with one
 // shift of the argument.
 func lgammaPsi128(z complex128) (complex128, complex128) {
@@ -102,51 +94,6 @@ var kernelArgs = []kernelArg{
 // continuation and by Newton's method on the collision system.
 type jet128 struct {
 	k, lh, ld, lhh, lhd complex128
-}
-
-// prefactor128 is the h-independent part of L = log k_A at D: its value
-// and its D-derivative.
-type prefactor128 struct {
-	d, l, ld complex128
-}
-
-// kernelPrefactor128 evaluates log(1 - 1/D) plus the four prefactor Gamma
-// factors, and their D-derivative.
-func kernelPrefactor128(d complex128) prefactor128 {
-	p := prefactor128{d: d, l: cmplx.Log(1 - 1/d), ld: 1 / (d * (d - 1))}
-	for _, a := range kernelArgs[4:] {
-		z := complex(a.a, 0) + complex(a.c, 0)*d
-		lg, ps := lgammaPsi128(z)
-		p.l += complex(a.sign, 0) * lg
-		p.ld += complex(a.sign*a.c, 0) * ps
-	}
-	return p
-}
-
-// kernelJet128 evaluates k_A(h, D) and L_h, L_D, L_hh, L_hD (L = log k_A)
-// in complex128. second selects whether the second derivatives are wanted.
-func kernelJet128(h, d complex128, second bool) jet128 {
-	return kernelJetPre128(h, kernelPrefactor128(d), second)
-}
-
-// kernelJetPre128 is kernelJet128 with the prefactor evaluated before.
-func kernelJetPre128(h complex128, p prefactor128, second bool) jet128 {
-	j := jet128{ld: p.ld}
-	L := p.l
-	for _, a := range kernelArgs[:4] {
-		z := complex(a.a, 0) + complex(a.b, 0)*h + complex(a.c, 0)*p.d
-		lg, ps := lgammaPsi128(z)
-		L += complex(a.sign, 0) * lg
-		j.lh += complex(a.sign*a.b, 0) * ps
-		j.ld += complex(a.sign*a.c, 0) * ps
-		if second {
-			tg := trigamma128(z)
-			j.lhh += complex(a.sign*a.b*a.b, 0) * tg
-			j.lhd += complex(a.sign*a.b*a.c, 0) * tg
-		}
-	}
-	j.k = cmplx.Exp(L)
-	return j
 }
 
 // finite128 reports whether z has finite parts.

@@ -510,6 +510,4 @@ func identifyLevel(end End, u complex128, h complex128) (level, bool) {
 	return level{}, false
 }
 
-func abs128(z complex128) float64 { return cmplx.Abs(z) }
-
 var debugScan = false
