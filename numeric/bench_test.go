@@ -3,6 +3,8 @@ package numeric
 import (
 	"runtime"
 	"testing"
+
+	"qbridge/numeric/dd"
 )
 
 // BenchmarkSolveQ4Beta1000 is one solve at q = 4, beta = 1000 on 2^20 points
@@ -44,5 +46,24 @@ func BenchmarkSolveZeroTEpsOrder10(b *testing.B) {
 		if _, err := SolveZeroTEps(EpsSeriesParams{Order: 10}); err != nil {
 			b.Fatal(err)
 		}
+	}
+}
+
+// BenchmarkEpsKernelDD is one double-double Mellin weight table of the
+// default zero-temperature grid (16384 points, step 0.05) to order 12, and
+// BenchmarkEpsKernel its float64 counterpart.
+func BenchmarkEpsKernelDD(b *testing.B) {
+	for i := 0; i < b.N; i++ {
+		epsKernelDD(16384, DefaultZeroTStep, dd.New(-1).AddFloat(DefaultZeroTTilt), DefaultKernelRadius, 13)
+	}
+}
+
+func BenchmarkEpsKernel(b *testing.B) {
+	g, err := NewLogGrid(DefaultZeroTTauMin, DefaultZeroTStep, 16384)
+	if err != nil {
+		b.Fatal(err)
+	}
+	for i := 0; i < b.N; i++ {
+		epsKernel(g, -1+DefaultZeroTTilt, DefaultKernelRadius, 13)
 	}
 }
