@@ -43,9 +43,16 @@ func ddLogInto(dst, a []dd.Float) {
 	}
 }
 
-// ddExpInto sets dst = exp a, from (e^a)' = a' e^a.
+// ddExpInto sets dst = exp a, from (e^a)' = a' e^a; a constant term below
+// the float64 range gives the zero series, as in ExpSeriesInto.
 func ddExpInto(dst, a []dd.Float) {
 	dst[0] = dd.Exp(a[0])
+	if dst[0].Hi == 0 {
+		for k := range dst {
+			dst[k] = dd.Float{}
+		}
+		return
+	}
 	for k := 1; k < len(dst); k++ {
 		var s dd.Float
 		for j := 1; j <= k; j++ {

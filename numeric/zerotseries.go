@@ -19,6 +19,12 @@ type EpsSeriesParams struct {
 	// the result only by round-off, which the order-by-order solve
 	// amplifies roughly tenfold per order: a second radius measures it.
 	KernelRadius float64
+	// Extended refines the float64 solution in double-double arithmetic
+	// (about 32 digits): residuals of the map evaluated in double-double,
+	// corrections solved with the float64 linearised map, order by order.
+	// The results are still returned as float64, now without the
+	// order-by-order amplification of float64 round-off.
+	Extended bool
 }
 
 // MaxEpsSeriesOrder bounds Order: the Mellin weights' eps-series come from
@@ -47,6 +53,9 @@ type ZeroTEpsSeries struct {
 	Residual   float64 // final max change, as in ZeroTSolution, over all orders
 	// OrderResidual is the final max change of each order.
 	OrderResidual []float64
+	// RefinedResidual is, with Params.Extended, the final residual of each
+	// order of the double-double map (same weights as Residual).
+	RefinedResidual []float64
 }
 
 // epsConst holds the eps-series of the q-dependent constants (length K).
@@ -248,6 +257,13 @@ func newEpsMap(p ZeroTParams, kr float64, k int) (*epsMap, error) {
 	if err != nil {
 		return nil, err
 	}
+	return newEpsMapOn(p, kr, k, grid), nil
+}
+
+// newEpsMapOn is newEpsMap on a given grid (the double-double refinement
+// solves its corrections with a two-term map on the grid of the full one).
+func newEpsMapOn(p ZeroTParams, kr float64, k int, grid *LogGrid) *epsMap {
+	eps := p.Tilt
 	n := grid.n
 	m := &epsMap{grid: grid, n: n, c: newEpsConst(k)}
 	m.kernS = epsKernel(grid, -1+eps, kr, k)
@@ -325,7 +341,7 @@ func newEpsMap(p ZeroTParams, kr float64, k int) (*epsMap, error) {
 		fsMulInto(t1, invq, t0)
 		m.setAt(m.sigModel, i, t1)
 	}
-	return m, nil
+	return m
 }
 
 func (m *epsMap) at(a []float64, i int, dst []float64) {
@@ -496,6 +512,25 @@ func SolveZeroTEps(p EpsSeriesParams) (*ZeroTEpsSeries, error) {
 		sol.Iterations += min(it, maxIterations)
 		sol.Residual = math.Max(sol.Residual, res)
 		sol.OrderResidual = append(sol.OrderResidual, res)
+	}
+	if p.Extended {
+		if gp.Progress != nil {
+			gp.Progress(float64(k-1)/float64(k), fmt.Sprintf("T = 0 eps-series: double-double refinement of %d orders", k))
+		}
+		md, err := newEpsMapDD(m, gp.Tilt, p.KernelRadius, k)
+		if err != nil {
+			return nil, err
+		}
+		X, res, err := refineEpsDD(m, md, gp, p.KernelRadius, full, k)
+		if err != nil {
+			return nil, err
+		}
+		sol.RefinedResidual = res
+		epsOutputDD(md, X, k, gp.Step, sol)
+		if gp.Progress != nil {
+			gp.Progress(1, fmt.Sprintf("T = 0 eps-series to order %d: done", p.Order))
+		}
+		return sol, nil
 	}
 	sol.Tau = make([]float64, free)
 	sol.Ratio = make([][]float64, k)
