@@ -19,20 +19,37 @@ type ZeroTEpsGround struct {
 }
 
 // Settings of the eps-series extraction: the variant solutions whose
-// differences from the main one are the noise model (another tilt, and
-// another radius of the Mellin weights' Cauchy sums: both move the result
-// only by round-off, amplified order by order), the fit windows and the
-// largest correction exponent (at eps = 0) of the models.
+// differences from the main one are the noise model (another tilt, which
+// moves the periodic images and the tilted round-off; and tau_min
+// e^{epsTauMinSteps step}, on the same points, which measures the
+// truncation of the grid at small tau), the fit windows and the largest
+// correction exponent (at eps = 0) of the models. All solutions are
+// refined in double-double (EpsSeriesParams.Extended): in float64 the
+// order-by-order solve amplifies round-off about tenfold per order.
 var (
-	epsVariants = []EpsSeriesParams{{Grid: ZeroTParams{Tilt: epsTiltStep}}, {KernelRadius: 0.6}}
-	epsWindows  = [][2]float64{{50, 1e5}, {20, 1e4}, {30, 3e4}, {20, 1e6}}
+	epsVariants = []EpsSeriesParams{{Grid: ZeroTParams{Tilt: epsTiltStep}}, {Grid: ZeroTParams{TauMin: -1}}}
+	epsWindows  = [][2]float64{{200, 1e8}, {100, 1e7}, {300, 1e9}, {150, 3e8}}
 	epsEmax     = []float64{6, 7}
 )
 
 // epsTiltStep is how much the tilt variant adds to the main tilt (the
-// default 0.15 becomes 0.2); the kernel variant's radius must differ from
-// the main one's too, or the noise model would collapse to its floor.
-const epsTiltStep = 0.05
+// default 0.15 becomes 0.2); epsTauMinSteps is how many grid steps the
+// tau_min variant starts later (TauMin: -1 in epsVariants marks it): 100
+// steps of 0.05 raise tau_min by e^5, which raises the truncation error a
+// hundredfold, so the variant bounds the main solution's.
+const (
+	epsTiltStep    = 0.05
+	epsTauMinSteps = 100
+)
+
+// maxOf returns the largest element of v (0 for an empty v).
+func maxOf(v []float64) float64 {
+	m := 0.0
+	for _, x := range v {
+		m = math.Max(m, x)
+	}
+	return m
+}
 
 // epsNoise returns the noise model of the main solution a: per order, the
 // largest difference from the others at the same tau (the grids share
@@ -42,10 +59,13 @@ func epsNoise(a *ZeroTEpsSeries, others []*ZeroTEpsSeries) [][]float64 {
 	k := len(a.Ratio)
 	out := make([][]float64, k)
 	raw := make([]float64, len(a.Tau))
-	tilt := a.Params.Grid.Tilt
 	for j := range out {
-		for i, tau := range a.Tau {
-			raw[i] = 1e-16 * math.Pow(tau, tilt)
+		for i := range a.Tau {
+			// The rounding of the double-double solution to float64.
+			raw[i] = 2.2e-16 * math.Abs(a.Ratio[j][i])
+			if j == 0 {
+				raw[i] = 2.2e-16
+			}
 		}
 		for _, b := range others {
 			ib := 0
@@ -77,8 +97,9 @@ func epsNoise(a *ZeroTEpsSeries, others []*ZeroTEpsSeries) [][]float64 {
 // the main solution over epsWindows and epsEmax; its error is half the
 // range over all fits of all solutions plus the largest statistical error.
 // E_0 is the main solution's, its error the largest difference from the
-// variants plus 1e-15 of the largest coefficient (the float64 round-off of
-// the sum).
+// variants plus 1e-15 of the largest coefficient (a margin over the
+// rounding of the double-double sums to float64). All three solutions are
+// refined in double-double (p.Extended is set).
 func SolveZeroTEpsGround(p EpsSeriesParams, dims [][]float64) (*ZeroTEpsGround, error) {
 	if len(dims) == 0 {
 		return nil, fmt.Errorf("%w: the zero-temperature fits need at least h_1", ErrInput)
@@ -93,22 +114,24 @@ func SolveZeroTEpsGround(p EpsSeriesParams, dims [][]float64) (*ZeroTEpsGround, 
 	if tilt == 0 {
 		tilt = DefaultZeroTTilt
 	}
-	kr := p.KernelRadius
-	if kr == 0 {
-		kr = DefaultKernelRadius
-	}
+	p.Extended = true
 	runs := []EpsSeriesParams{p}
 	for _, v := range epsVariants {
 		pv := p
 		if v.Grid.Tilt != 0 {
 			pv.Grid.Tilt = tilt + v.Grid.Tilt
 		}
-		if v.KernelRadius != 0 {
-			pv.KernelRadius = v.KernelRadius
-			if math.Abs(kr-v.KernelRadius) < 0.05 {
-				pv.KernelRadius = kr + 0.1
+		if v.Grid.TauMin < 0 {
+			tmin, step := p.Grid.TauMin, p.Grid.Step
+			if tmin == 0 {
+				tmin = DefaultZeroTTauMin
 			}
+			if step == 0 {
+				step = DefaultZeroTStep
+			}
+			pv.Grid.TauMin = math.Min(tmin*math.Exp(epsTauMinSteps*step), 1e-6)
 		}
+		pv.Extended = true
 		runs = append(runs, pv)
 	}
 	var mu sync.Mutex
@@ -212,7 +235,7 @@ func SolveZeroTEpsGround(p EpsSeriesParams, dims [][]float64) (*ZeroTEpsGround, 
 		wlo, whi = math.Min(wlo, w[0]), math.Max(whi, w[1])
 	}
 	var sb strings.Builder
-	fmt.Fprintf(&sb, "T = 0 Schwinger-Dyson solve as power series in eps to order %d (float64 coefficients on a log grid of %d points, step %.3g, tau %.0e..%.0e then conformal, tilt %.2g; Mellin weights of the moving tilts expanded in eps by Cauchy sums at %.2g of the distance to their pole), and two variants (tilt %.2g; Cauchy radius %.2g), ", p.Order, a.Points, pp.Step, pp.TauMin, pp.TauPin, pp.Tilt, a.Params.KernelRadius, sols[1].Params.Grid.Tilt, sols[2].Params.KernelRadius)
+	fmt.Fprintf(&sb, "T = 0 Schwinger-Dyson solve as power series in eps to order %d (on a log grid of %d points, step %.3g, tau %.0e..%.0e then conformal, tilt %.2g; Mellin weights of the moving tilts expanded in eps by Cauchy sums at %.2g of the distance to their pole; float64 iteration refined in double-double, residuals <= %.0e), and two variants (tilt %.2g; tau from %.1e), ", p.Order, a.Points, pp.Step, pp.TauMin, pp.TauPin, pp.Tilt, a.Params.KernelRadius, maxOf(a.RefinedResidual), sols[1].Params.Grid.Tilt, sols[2].Params.Grid.TauMin)
 	fmt.Fprintf(&sb, "alpha_G from joint fits of all orders of G/G_c - 1 with exponents 1 and h_n(eps) - 1 and their sums up to %g at eps = 0 (the log tau terms of the moving exponents carried exactly), over %d windows in tau %g..%g, noise = largest difference from the variants; ", epsEmax[len(epsEmax)-1], len(epsWindows), wlo, whi)
 	sb.WriteString("error = half the range of all fits of the three solutions + largest statistical error; E_0 error = largest difference from the variants")
 	g.Method = sb.String()
