@@ -104,6 +104,25 @@ func TestEpsGroundBeyondLadder(t *testing.T) {
 			}
 		}
 	}
+	// The targets of the double-double zero-temperature route: alpha_S to 7
+	// significant digits (error <= 1e-7 of the value or <= 1e-11) through
+	// eps^10, E_0 to 1e-12 through eps^12, and alpha_S(q = 2) = 1/(24 pi)
+	// (the free-fermion specific heat, PHYSICS.md) within its stated error
+	// and 1e-12.
+	for k := 0; k <= 10; k++ {
+		v, e := g.AlphaS.Values[k], g.AlphaS.Errors[k]
+		if !(e <= math.Max(1e-7*math.Abs(v), 1e-11)) {
+			t.Errorf("alpha_S eps^%d = %.12g +- %.2g: fewer than 7 significant digits", k, v, e)
+		}
+	}
+	for k := 0; k <= order; k++ {
+		if !(g.E0.Errors[k] <= 1e-12) {
+			t.Errorf("E_0 eps^%d = %.15g +- %.2g: error above 1e-12", k, g.E0.Values[k], g.E0.Errors[k])
+		}
+	}
+	if d := math.Abs(g.AlphaS.Values[0] - 1/(24*math.Pi)); d > g.AlphaS.Errors[0] || d > 1e-12 {
+		t.Errorf("alpha_S(q = 2) = %.17g +- %.2g, exact 1/(24 pi) = %.17g", g.AlphaS.Values[0], g.AlphaS.Errors[0], 1/(24*math.Pi))
+	}
 	// Stated vs true error: the partial sums at q = 2.5 (eps = 0.2) and
 	// q = 3 (eps = 1/3) against the direct zero-temperature solves there
 	// (SoftModeZeroT: E_0 and alpha_S, errors 1e-15 and 1e-12). The sum's
