@@ -40,12 +40,21 @@ func BenchmarkSolveGroundQ4(b *testing.B) {
 	}
 }
 
-// The zero-temperature eps-series to order 10 on the default grid.
+// The zero-temperature eps-series to order 10 on the default grid, in
+// float64 and refined in double-double.
 func BenchmarkSolveZeroTEpsOrder10(b *testing.B) {
-	for i := 0; i < b.N; i++ {
-		if _, err := SolveZeroTEps(EpsSeriesParams{Order: 10}); err != nil {
-			b.Fatal(err)
+	for _, ext := range []bool{false, true} {
+		name := "float64"
+		if ext {
+			name = "double-double"
 		}
+		b.Run(name, func(b *testing.B) {
+			for i := 0; i < b.N; i++ {
+				if _, err := SolveZeroTEps(EpsSeriesParams{Order: 10, Extended: ext}); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
 	}
 }
 

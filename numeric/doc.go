@@ -32,7 +32,11 @@
 // by order, and SolveZeroTEpsGround fits all orders of G/G_c - 1 at once
 // (FitAlphaGEps, with the exponents of EpsExponents carried as series) to
 // give alpha_G and E_0 as eps-series; the eps-series of h_n come from the
-// caller.
+// caller. With EpsSeriesParams.Extended the float64 iteration is refined in
+// double-double arithmetic (sub-package dd; zerotseriesdd.go is the map,
+// zerotkerneldd.go its Mellin weights, zerotrefine.go the refinement), which
+// removes the tenfold-per-order growth of float64 round-off;
+// SolveZeroTEpsGround always refines.
 //
 // The package is also the float64 toolkit of the perturbative expansions
 // (package expansion/energy): the half-interval sine-transform grid
