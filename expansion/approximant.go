@@ -146,14 +146,17 @@ func newEnergyApproximant(p energyProvider, order int, cache *Cache) (*Approxima
 	}
 	name := p.q.Name
 	fn := normalisedName(pw, name)
-	from := "from low-temperature fits of the finite-temperature series"
+	// Around q = 2 each coefficient comes from the route that states the
+	// smaller error (energy.EpsGround); around infinity from the ladder.
+	const routesText = "around q = 2 per coefficient the zero-temperature eps-series (refined in double-double) or the low-temperature fits of the finite-temperature series, whichever states the smaller error; around q = infinity the low-temperature fits of the finite-temperature 1/q series"
+	from := "coefficients: " + routesText
 	if p.soft() {
-		from = "the alpha_S series (low-temperature fits of the finite-temperature series) times the exact series of " + name + "/alpha_S"
+		from = "the alpha_S series (" + routesText + ") times the exact series of " + name + "/alpha_S"
 	}
 	ap := &Approximant{
 		Name: name, Function: fn, OrderEps: eo, OrderX: xo,
 		Two: &conformal.Coefficients{Quantity: name, End: conformal.AroundTwo, N: -1, Values: bigs(a.Values), Errors: bigs(a.Errors), Prec: 53,
-			Method: fmt.Sprintf("low-temperature fits over beta = %.4g..%.4g", ge.BetaMin, ge.BetaMax)},
+			Method: fmt.Sprintf("per coefficient the zero-temperature eps-series or low-temperature fits over beta = %.4g..%.4g, whichever states the smaller error", ge.BetaMin, ge.BetaMax)},
 		Inf: &conformal.Coefficients{Quantity: name, End: conformal.AroundInf, N: -1, Values: bigs(b.Values), Errors: bigs(b.Errors), Prec: 53,
 			Method: fmt.Sprintf("low-temperature fits over beta = %.4g..%.4g", gi.BetaMin, gi.BetaMax)},
 		Notes: []string{fmt.Sprintf("%s: series to order %d around q = 2 (%s) and %d around q = infinity (%s), %s; the two-point Pade approximates %s in x = 1/q, its error adds the spread of the approximants and the shift under the coefficient error bars",

@@ -50,7 +50,9 @@ S_0 (s0), E_0 (e0), alpha_S (alpha), alpha_G, alpha_K, logZ (needs --beta).
 Around infinity b has x log x terms, so the series of b^q and of
 log(b)/x - log(x) are printed instead of b. E_0 and alpha_S come from
 low-temperature fits of the finite-temperature series, with the fitted S_0
-against its exact series as a built-in check; alpha_G and alpha_K are the
+against its exact series as a built-in check, and around q = 2 per
+coefficient from the zero-temperature eps-series (refined in double-double)
+where that states the smaller error; alpha_G and alpha_K are the
 alpha_S series times the exact series of 6 q^2 alpha_0 (alpha_K) and
 6 q^2 alpha_0/(-q k_A'(2)) (alpha_G), both analytic at q = 2.
 --units J: around q = 2 the series of E_0, alpha_S, alpha_G, alpha_K are
