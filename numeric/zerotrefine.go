@@ -96,9 +96,6 @@ func refineEpsDD(m *epsMap, md *epsMapDD, p ZeroTParams, kr float64, full []floa
 		// right after a correction: refresh the transforms of this order.
 		md.apply(outD, X, j+1)
 	}
-	for i := free; i < n; i++ {
-		fl[n+i] = 0
-	}
 	return X, res, nil
 }
 

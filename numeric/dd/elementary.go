@@ -19,26 +19,15 @@ func Exp(a Float) Float {
 	// k ln 2 in three exact products' worth of precision.
 	p1, e1 := twoProd(k, Ln2.Hi)
 	p2, e2 := twoProd(k, Ln2.Lo)
-	r := a.Sub(Float{p1, e1}).Sub(Float{p2, e2}).AddFloat(-k * ln2Tail).Ldexp(-10)
-	// s = e^r - 1 = r + r^2/2! + ... ; |r| < 3.4e-4, so 10 terms reach 1e-38.
-	s := r
-	t := r
-	for n := 2; n <= 10; n++ {
-		t = t.Mul(r).DivFloat(float64(n))
-		s = s.Add(t)
-	}
-	for i := 0; i < 10; i++ {
-		s = s.MulFloat(2).Add(s.Mul(s))
-	}
-	return s.AddFloat(1).Ldexp(int(k))
+	r := a.Sub(Float{p1, e1}).Sub(Float{p2, e2}).AddFloat(-k * ln2Tail)
+	return expm1Small(r).AddFloat(1).Ldexp(int(k))
 }
 
-// Expm1 returns e^a - 1 without the cancellation of Exp(a) - 1 for small a.
-func Expm1(a Float) Float {
-	if math.Abs(a.Hi) > 0.5 {
-		return Exp(a).AddFloat(-1)
-	}
-	r := a.Ldexp(-10)
+// expm1Small returns e^r - 1 for |r| <= 0.5: the Taylor series at r/2^10
+// (10 terms: below 1e-38 there) and ten squarings of 1 + s kept as s,
+// s <- 2s + s^2.
+func expm1Small(r Float) Float {
+	r = r.Ldexp(-10)
 	s := r
 	t := r
 	for n := 2; n <= 10; n++ {
@@ -49,6 +38,14 @@ func Expm1(a Float) Float {
 		s = s.MulFloat(2).Add(s.Mul(s))
 	}
 	return s
+}
+
+// Expm1 returns e^a - 1 without the cancellation of Exp(a) - 1 for small a.
+func Expm1(a Float) Float {
+	if math.Abs(a.Hi) > 0.5 {
+		return Exp(a).AddFloat(-1)
+	}
+	return expm1Small(a)
 }
 
 // Log returns the natural logarithm of a > 0 (NaN for a < 0, -Inf for 0):

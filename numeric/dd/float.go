@@ -132,14 +132,3 @@ func (a Float) Abs() Float {
 	}
 	return a
 }
-
-// Cmp compares a and b: -1, 0 or +1.
-func (a Float) Cmp(b Float) int {
-	switch {
-	case a.Hi < b.Hi || (a.Hi == b.Hi && a.Lo < b.Lo):
-		return -1
-	case a.Hi == b.Hi && a.Lo == b.Lo:
-		return 0
-	}
-	return 1
-}
