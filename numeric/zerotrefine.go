@@ -51,6 +51,7 @@ func refineEpsDD(m *epsMap, md *epsMapDD, p ZeroTParams, kr float64, full []floa
 	outD := make([]dd.Float, n*k)
 	r := make([]dd.Float, free)
 	rf := make([]float64, free)
+	u := make([]float64, free)
 	res := make([]float64, k)
 	for j := 0; j < k; j++ {
 		prev := math.Inf(1)
@@ -71,7 +72,9 @@ func refineEpsDD(m *epsMap, md *epsMapDD, p ZeroTParams, kr float64, full []floa
 			for i := range rf {
 				rf[i] = r[i].Float64() / rn
 			}
-			u := make([]float64, free)
+			for i := range u {
+				u[i] = 0
+			}
 			fp := fixedPoint{tol: 1e-13, mix: 0.5, active: free, floor: true}
 			fr := fp.run(u, func(x, fx []float64) float64 {
 				copy(fl[n:n+free], x)
@@ -92,9 +95,8 @@ func refineEpsDD(m *epsMap, md *epsMapDD, p ZeroTParams, kr float64, full []floa
 				X[j*n+i] = X[j*n+i].Add(dd.New(u[i]).MulFloat(rn))
 			}
 		}
-		// The last residual was taken at the kept X unless the loop ended
-		// right after a correction: refresh the transforms of this order.
-		md.apply(outD, X, j+1)
+		// The loop ends only right after a residual at the kept X, so md
+		// holds this order's transforms of X for the next orders.
 	}
 	return X, res, nil
 }
