@@ -122,12 +122,13 @@ func (g *HalfGrid) Trapezoid(f0 float64, f []float64) float64 {
 	if n == 0 {
 		return 0
 	}
-	s := 0.5 * f0
+	var s CompSum // compensated: grids reach 10^6 points
+	s.Add(0.5 * f0)
 	for k := 0; k < n-1; k++ {
-		s += f[k]
+		s.Add(f[k])
 	}
-	s += 0.5 * f[n-1]
-	return s * g.h
+	s.Add(0.5 * f[n-1])
+	return s.Sum() * g.h
 }
 
 // CoshRatio returns cosh(a (beta/2 - tau)) / cosh(a beta/2) without overflow.

@@ -15,7 +15,7 @@ import (
 // exact sum (numeric.MatsubaraTails) added back.
 func assembleLogZ(gr *numeric.HalfGrid, sig [][]float64, a1, a2 []float64, c float64, inter []float64) []float64 {
 	n := len(a1)
-	sum := make([]float64, n)
+	sum := make([]numeric.CompSum, n) // compensated: 10^6 frequencies
 	u := make([]float64, n)
 	l := make([]float64, n)
 	for i := 0; i < gr.M(); i++ {
@@ -32,13 +32,13 @@ func assembleLogZ(gr *numeric.HalfGrid, sig [][]float64, a1, a2 []float64, c flo
 		f1 := 2 / d
 		f2 := f1 / d
 		for k := range sum {
-			sum[k] += l[k] - a1[k]*f1 - a2[k]*f2
+			sum[k].Add(l[k] - a1[k]*f1 - a2[k]*f2)
 		}
 	}
 	s1, s2 := numeric.MatsubaraTails(gr.Beta(), c)
 	out := make([]float64, n)
 	for k := range out {
-		out[k] = sum[k] + a1[k]*s1 + a2[k]*s2 - gr.Beta()*inter[k]
+		out[k] = sum[k].Sum() + a1[k]*s1 + a2[k]*s2 - gr.Beta()*inter[k]
 	}
 	out[0] += 0.5 * math.Ln2
 	return out
