@@ -236,29 +236,40 @@ func groundNotes(end conformal.End, g *energy.GroundSeries, route []string) ([]s
 	}
 	ladder := fmt.Sprintf("low-temperature fits of log Z_k = -beta E_0k + S_0k + 2 pi^2 alpha_Sk/beta + corrections over %d temperatures, beta = %.4g..%.4g; errors = spread over fit windows and models + propagated data errors", len(g.Ladder), g.BetaMin, g.BetaMax)
 	notes = append(notes, ladder+".", "log Z is evaluated from the converged G and Sigma at every order (the stationarity of log Z is not used).")
-	var zt, fit []string
+	var zt, lv, fit []string
 	for k, r := range route {
-		if r == energy.RouteZeroT {
+		switch r {
+		case energy.RouteZeroT:
 			zt = append(zt, fmt.Sprint(k))
-		} else {
+		case energy.RouteLiouville:
+			lv = append(lv, fmt.Sprint(k))
+		default:
 			fit = append(fit, fmt.Sprint(k))
 		}
+	}
+	var parts []string
+	if len(lv) > 0 {
+		notes = append(notes, fmt.Sprintf("Order %s comes from the exact order-1/q^2 thermodynamics (%s); the ladder's own fit of it is the check of the fits, with S_0 against the exact series.", strings.Join(lv, ","), energy.LiouvilleMethod))
+		parts = append(parts, fmt.Sprintf("orders %s: %s", strings.Join(lv, ","), energy.LiouvilleMethod))
 	}
 	if len(zt) == 0 {
 		if g.ZeroTFailure != "" {
 			notes = append(notes, "The zero-temperature eps-series, which would compete per coefficient, failed: "+g.ZeroTFailure+".")
 		}
-		return notes, ladder
+		if len(parts) == 0 {
+			return notes, ladder
+		}
+		return notes, strings.Join(append(parts, fmt.Sprintf("orders %s: %s", strings.Join(fit, ","), ladder)), "; ")
 	}
 	notes = append(notes, "Each coefficient comes from the route that states the smaller error: the finite-T ladder or the zero-temperature eps-series ("+g.ZeroTMethod+").")
 	if g.LadderOrders < len(route) {
 		notes = append(notes, fmt.Sprintf("The ladder's low-temperature fits fail from order %d on; those coefficients come from the zero-temperature eps-series alone, and the S_0 check covers orders 0..%d.", g.LadderOrders, g.LadderOrders-1))
 	}
-	method := fmt.Sprintf("orders %s: %s", strings.Join(zt, ","), g.ZeroTMethod)
+	parts = append(parts, fmt.Sprintf("orders %s: %s", strings.Join(zt, ","), g.ZeroTMethod))
 	if len(fit) > 0 {
-		method += fmt.Sprintf("; orders %s: %s", strings.Join(fit, ","), ladder)
+		parts = append(parts, fmt.Sprintf("orders %s: %s", strings.Join(fit, ","), ladder))
 	}
-	return notes, method
+	return notes, strings.Join(parts, "; ")
 }
 
 // resumOrders clamps the requested order to what each end supports.

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"math/big"
 )
 
 // GroundParams selects a low-temperature extraction: the finite-beta
@@ -54,6 +55,9 @@ type GroundSeries struct {
 const (
 	RouteLadder = "finite-T ladder"
 	RouteZeroT  = "T = 0 eps-series"
+	// RouteLiouville is the exact order-1/q^2 thermodynamics
+	// (LiouvilleExpansion).
+	RouteLiouville = "Liouville closed form"
 )
 
 // MaxZeroTEpsOrder is the highest order of the zero-temperature
@@ -395,5 +399,41 @@ func InvQGround(p GroundParams) (*GroundSeries, error) {
 	}
 	g.E0Route = routes(p.Order+1, RouteLadder)
 	g.AlphaSRoute = routes(p.Order+1, RouteLadder)
+	if err := g.mergeLiouville(); err != nil {
+		return nil, err
+	}
 	return g, nil
+}
+
+// mergeLiouville replaces the x^2 coefficients of E_0 and alpha_S by the
+// exact order-1/q^2 thermodynamics (the ladder's values stay in LadderE0
+// and LadderAlphaS, and its S_0 remains the check of the fits). The exact
+// values are computed at 128 bits; their only error is the float64
+// rounding, stated as one ulp.
+func (g *GroundSeries) mergeLiouville() error {
+	l, err := LiouvilleExpansion(3, 128)
+	if err != nil {
+		return err
+	}
+	cp := func(c Coeffs) Coeffs {
+		return Coeffs{Values: append([]float64(nil), c.Values...), Errors: append([]float64(nil), c.Errors...)}
+	}
+	g.LadderE0, g.LadderAlphaS = cp(g.E0), cp(g.AlphaS)
+	for _, c := range []struct {
+		dst   *Coeffs
+		v     *big.Float
+		route []string
+	}{{&g.E0, l.E0, g.E0Route}, {&g.AlphaS, l.AlphaS, g.AlphaSRoute}} {
+		v, _ := c.v.Float64()
+		c.dst.Values[2], c.dst.Errors[2] = v, ulp(v)
+		c.route[2] = RouteLiouville
+	}
+	return nil
+}
+
+// ulp is the spacing of float64 numbers at v: the rounding error bound of
+// a value computed in higher precision and rounded to float64.
+func ulp(v float64) float64 {
+	a := math.Abs(v)
+	return math.Nextafter(a, math.Inf(1)) - a
 }
