@@ -81,17 +81,18 @@ func TestDeltaGroundS0AndFreeFermion(t *testing.T) {
 	}
 }
 
-// Beyond the orders the ladder's fits reach (order 10 with the default
-// ladder), the zero-temperature eps-series completes E_0 and alpha_S; the
-// S_0 check keeps the fitted orders only; beyond that route's reach the
-// order is refused and the error says why.
+// Beyond the orders the ladder's fits reach (all 12 with the default
+// ladder since its sums are compensated; order 10 before), the
+// zero-temperature eps-series completes E_0 and alpha_S; the S_0 check
+// keeps the fitted orders only; beyond that route's reach the order is
+// refused and the error says why.
 func TestEpsGroundBeyondLadder(t *testing.T) {
 	const order = 12
 	g, err := EpsGround(GroundParams{Order: order})
 	if err != nil {
 		t.Fatal(err)
 	}
-	if g.LadderOrders < 1 || g.LadderOrders > order || g.S0.Len() != g.LadderOrders {
+	if g.LadderOrders < 1 || g.LadderOrders > order+1 || g.S0.Len() != g.LadderOrders {
 		t.Fatalf("ladder orders %d, S_0 has %d", g.LadderOrders, g.S0.Len())
 	}
 	for k := g.LadderOrders; k <= order; k++ {
@@ -155,8 +156,13 @@ func TestEpsGroundBeyondLadder(t *testing.T) {
 			}
 		}
 	}
-	_, err = EpsGround(GroundParams{Order: MaxZeroTEpsOrder})
-	if err == nil || !strings.Contains(err.Error(), "zero-temperature eps-series") {
+	// At the zero-temperature route's limit the ladder must either fit
+	// every order itself or fail saying that the other route cannot help.
+	g, err = EpsGround(GroundParams{Order: MaxZeroTEpsOrder})
+	switch {
+	case err == nil && g.LadderOrders != MaxZeroTEpsOrder+1:
+		t.Errorf("order %d: no error, but the ladder fitted only %d orders", MaxZeroTEpsOrder, g.LadderOrders)
+	case err != nil && !strings.Contains(err.Error(), "zero-temperature eps-series"):
 		t.Errorf("order %d: %v", MaxZeroTEpsOrder, err)
 	}
 }
