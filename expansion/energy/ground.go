@@ -258,11 +258,8 @@ func routes(n int, r string) []string {
 // mergeZeroT takes, per coefficient of E_0 and alpha_S, the
 // zero-temperature value where its stated error is the smaller.
 func (g *GroundSeries) mergeZeroT(z *ZeroTEps) {
-	cp := func(c Coeffs) Coeffs {
-		return Coeffs{Values: append([]float64(nil), c.Values...), Errors: append([]float64(nil), c.Errors...)}
-	}
-	g.LadderE0, g.LadderAlphaS, g.ZeroT = cp(g.E0), cp(g.AlphaS), z
-	g.ZeroTAlphaG = cp(z.AlphaG)
+	g.LadderE0, g.LadderAlphaS, g.ZeroT = cloneCoeffs(g.E0), cloneCoeffs(g.AlphaS), z
+	g.ZeroTAlphaG = cloneCoeffs(z.AlphaG)
 	if g.ZeroTMethod == "" {
 		g.ZeroTMethod = z.Method
 	}
@@ -415,10 +412,7 @@ func (g *GroundSeries) mergeLiouville() error {
 	if err != nil {
 		return err
 	}
-	cp := func(c Coeffs) Coeffs {
-		return Coeffs{Values: append([]float64(nil), c.Values...), Errors: append([]float64(nil), c.Errors...)}
-	}
-	g.LadderE0, g.LadderAlphaS = cp(g.E0), cp(g.AlphaS)
+	g.LadderE0, g.LadderAlphaS = cloneCoeffs(g.E0), cloneCoeffs(g.AlphaS)
 	for _, c := range []struct {
 		dst   *Coeffs
 		v     *big.Float
@@ -436,4 +430,9 @@ func (g *GroundSeries) mergeLiouville() error {
 func ulp(v float64) float64 {
 	a := math.Abs(v)
 	return math.Nextafter(a, math.Inf(1)) - a
+}
+
+// cloneCoeffs returns an independent copy of c.
+func cloneCoeffs(c Coeffs) Coeffs {
+	return Coeffs{Values: append([]float64(nil), c.Values...), Errors: append([]float64(nil), c.Errors...)}
 }
