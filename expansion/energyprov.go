@@ -247,27 +247,30 @@ func groundNotes(end conformal.End, g *energy.GroundSeries, route []string) ([]s
 			fit = append(fit, fmt.Sprint(k))
 		}
 	}
-	var parts []string
 	if len(lv) > 0 {
 		notes = append(notes, fmt.Sprintf("Order %s comes from the exact order-1/q^2 thermodynamics (%s); the ladder's own fit of it is the check of the fits, with S_0 against the exact series.", strings.Join(lv, ","), energy.LiouvilleMethod))
-		parts = append(parts, fmt.Sprintf("orders %s: %s", strings.Join(lv, ","), energy.LiouvilleMethod))
 	}
 	if len(zt) == 0 {
 		if g.ZeroTFailure != "" {
 			notes = append(notes, "The zero-temperature eps-series, which would compete per coefficient, failed: "+g.ZeroTFailure+".")
 		}
-		if len(parts) == 0 {
-			return notes, ladder
+	} else {
+		notes = append(notes, "Each coefficient comes from the route that states the smaller error: the finite-T ladder or the zero-temperature eps-series ("+g.ZeroTMethod+").")
+		if g.LadderOrders < len(route) {
+			notes = append(notes, fmt.Sprintf("The ladder's low-temperature fits fail from order %d on; those coefficients come from the zero-temperature eps-series alone, and the S_0 check covers orders 0..%d.", g.LadderOrders, g.LadderOrders-1))
 		}
-		return notes, strings.Join(append(parts, fmt.Sprintf("orders %s: %s", strings.Join(fit, ","), ladder)), "; ")
 	}
-	notes = append(notes, "Each coefficient comes from the route that states the smaller error: the finite-T ladder or the zero-temperature eps-series ("+g.ZeroTMethod+").")
-	if g.LadderOrders < len(route) {
-		notes = append(notes, fmt.Sprintf("The ladder's low-temperature fits fail from order %d on; those coefficients come from the zero-temperature eps-series alone, and the S_0 check covers orders 0..%d.", g.LadderOrders, g.LadderOrders-1))
+	if len(lv) == 0 && len(zt) == 0 {
+		return notes, ladder
 	}
-	parts = append(parts, fmt.Sprintf("orders %s: %s", strings.Join(zt, ","), g.ZeroTMethod))
-	if len(fit) > 0 {
-		parts = append(parts, fmt.Sprintf("orders %s: %s", strings.Join(fit, ","), ladder))
+	var parts []string
+	for _, p := range []struct {
+		orders []string
+		method string
+	}{{lv, energy.LiouvilleMethod}, {zt, g.ZeroTMethod}, {fit, ladder}} {
+		if len(p.orders) > 0 {
+			parts = append(parts, fmt.Sprintf("orders %s: %s", strings.Join(p.orders, ","), p.method))
+		}
 	}
 	return notes, strings.Join(parts, "; ")
 }

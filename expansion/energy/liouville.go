@@ -67,8 +67,8 @@ func LiouvilleExpansion(terms int, prec uint) (*LiouvilleLowT, error) {
 	}
 	om := series.AddConst(series.Neg(etaT), big.NewFloat(1))
 	sq := series.Mul(om, om)
-	quarterPi2 := new(big.Float).SetPrec(wp).Mul(pi, pi)
-	quarterPi2.Quo(quarterPi2, big.NewFloat(4))
+	pi2 := new(big.Float).SetPrec(wp).Mul(pi, pi)
+	quarterPi2 := new(big.Float).SetPrec(wp).Quo(pi2, big.NewFloat(4))
 	// (pi^2/4) t (1-eta)^2: the t shifts the coefficients up by one.
 	tl := c.Coeffs()
 	sqc := sq.Coeffs()
@@ -79,8 +79,7 @@ func LiouvilleExpansion(terms int, prec uint) (*LiouvilleLowT, error) {
 	out := &LiouvilleLowT{Prec: prec}
 	out.E0 = round(new(big.Float).Neg(tl[0]))
 	out.S0 = round(tl[1])
-	twoPi2 := new(big.Float).SetPrec(wp).Mul(pi, pi)
-	twoPi2.Mul(twoPi2, big.NewFloat(2))
+	twoPi2 := new(big.Float).SetPrec(wp).Mul(pi2, big.NewFloat(2))
 	out.AlphaS = round(new(big.Float).SetPrec(wp).Quo(tl[2], twoPi2))
 	for k := 2; k < n; k++ {
 		out.Tail = append(out.Tail, round(tl[k]))
